@@ -4,6 +4,7 @@
 // input and the same parameters gives the same figures.
 
 import type { TrapType } from './trap-types';
+import { GJ_PER_MMBTU } from './units';
 
 export interface BandLimits {
   /** Upper edge of the quiet band, dB (quiet = level ≤ this). */
@@ -142,9 +143,6 @@ export interface AnalysisParams {
     emissionFactor: EmissionFactor;
   };
 }
-
-// 1 mmBtu = 1.05505585262 GJ (International Table Btu, 1055.05585262 J).
-const GJ_PER_MMBTU = 1.05505585262;
 
 /** EPA 40 CFR Part 98 Subpart C, Table C-1, kg CO2/mmBtu (HHV), as amended 81 FR 89188 (9 Dec 2016). */
 export const EPA_TABLE_C1_KG_PER_MMBTU = {
