@@ -1,0 +1,14 @@
+// Every migration, in order. umzug takes this static list: a glob of .ts files fails under vitest.
+import * as m20261201000100 from './20261201000100-create-users-sites-memberships';
+import * as m20261201000200 from './20261201000200-create-areas-traps';
+import * as m20261201000300 from './20261201000300-create-surveys';
+import * as m20261201000400 from './20261201000400-create-api-tokens';
+import * as m20261201000500 from './20261201000500-create-audit-events-sign-in-attempts';
+
+export const migrations = [
+  { name: '20261201000100-create-users-sites-memberships', ...m20261201000100 },
+  { name: '20261201000200-create-areas-traps', ...m20261201000200 },
+  { name: '20261201000300-create-surveys', ...m20261201000300 },
+  { name: '20261201000400-create-api-tokens', ...m20261201000400 },
+  { name: '20261201000500-create-audit-events-sign-in-attempts', ...m20261201000500 },
+];

@@ -1,0 +1,10 @@
+// Every seeder, in order (static list, as for migrations).
+import * as s20261201000100 from './20261201000100-demo-sites-and-users';
+import * as s20261201000200 from './20261201000200-demo-register';
+import * as s20261201000300 from './20261201000300-demo-surveys';
+
+export const seeders = [
+  { name: '20261201000100-demo-sites-and-users', ...s20261201000100 },
+  { name: '20261201000200-demo-register', ...s20261201000200 },
+  { name: '20261201000300-demo-surveys', ...s20261201000300 },
+];

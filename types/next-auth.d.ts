@@ -1,0 +1,22 @@
+import 'next-auth';
+import 'next-auth/jwt';
+import type { Role } from '@/lib/domain/vocabulary';
+
+declare module 'next-auth' {
+  interface Session {
+    user?: {
+      id: string;
+      name?: string | null;
+      email?: string | null;
+      image?: string | null;
+      role?: Role;
+      siteIds?: number[] | 'all';
+    };
+  }
+}
+
+declare module 'next-auth/jwt' {
+  interface JWT {
+    uid?: number;
+  }
+}
