@@ -35,6 +35,11 @@ export function checkTimebase(tb: Timebase, count: number): void {
   }
 }
 
+/** Time of reading i. */
+export function sampleTimeS(tb: Timebase, i: number): number {
+  return tb.kind === 'regular' ? (tb.startS ?? 0) + i / tb.rateHz : tb.offsetsS[i];
+}
+
 /** Time of the boundary before cell i (i = 0…count; i = count is the end of the test). */
 export function boundaryS(tb: Timebase, count: number, i: number): number {
   if (tb.kind === 'regular') return (tb.startS ?? 0) + (i - 0.5) / tb.rateHz;
