@@ -1,7 +1,7 @@
 import 'server-only';
 import type { Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { AuditEvent } from '@/models';
+import { AuditEvent, User } from '@/models';
 
 export type AuditInput = {
   siteId: number | null;
@@ -41,4 +41,19 @@ export function changedFields(before: Record<string, unknown>, after: Record<str
     }
   }
   return { before: b, after: a, changed: Object.keys(a).length > 0 };
+}
+
+/** The trail of one record, newest first, with who did it. */
+export async function auditTrail(entityType: string, entityId: number, limit = 50) {
+  const events = await AuditEvent.findAll({
+    where: { entityType, entityId },
+    include: [{ model: User, as: 'user', attributes: ['name'] }],
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    limit,
+  });
+  return events.map((e) => ({
+    id: e.id, action: e.action, at: e.createdAt.toISOString(),
+    by: (e as AuditEvent & { user?: { name: string } }).user?.name ?? 'system',
+    before: e.before ?? null, after: e.after ?? null, reason: e.reason ?? null,
+  }));
 }

@@ -1,0 +1,19 @@
+/** @type {import('next').NextConfig} */
+const securityHeaders = [
+  { key: 'X-Content-Type-Options', value: 'nosniff' },
+  { key: 'Referrer-Policy', value: 'same-origin' },
+  { key: 'X-Frame-Options', value: 'DENY' },
+  { key: 'Content-Security-Policy', value: "frame-ancestors 'none'; base-uri 'self'; form-action 'self'; object-src 'none'" },
+];
+
+const nextConfig = {
+  // Sequelize finds its SQLite driver at run time; bundled, it cannot (and the build fails on pg-hstore).
+  serverExternalPackages: ['sequelize', 'sqlite3'],
+  poweredByHeader: false,
+  typedRoutes: false,
+  async headers() {
+    return [{ source: '/:path*', headers: securityHeaders }];
+  },
+};
+
+export default nextConfig;
