@@ -130,6 +130,13 @@ function bestOrder(counts: Record<DateOrder, number>): { order: DateOrder; count
   return { order: best, count: counts[best], ambiguous };
 }
 
+/** Growing at least 90 % of the way: a clock reset or a repeated time does not hide an epoch column. */
+function mostlyIncreasing(nums: number[]): boolean {
+  let up = 0;
+  for (let i = 1; i < nums.length; i++) if (nums[i] >= nums[i - 1]) up++;
+  return nums.length > 1 && up >= 0.9 * (nums.length - 1);
+}
+
 function isNonDecreasing(nums: number[]): boolean {
   for (let i = 1; i < nums.length; i++) if (nums[i] < nums[i - 1]) return false;
   return nums.length > 1;
@@ -180,8 +187,8 @@ export function detectColumn(index: number, name: string, unitText: string | nul
       if (x > max) max = x;
     }
     const num = { ...base, min, max, valueShare: share(st.numeric, st.n) };
-    if (min >= 1e9 && max < 5e9 && isNonDecreasing(nums)) return { ...num, kind: 'epoch', epochUnit: 's', confidence: 0.85, reason: 'numbers near 1.7 billion that grow: seconds since 1970' };
-    if (min >= 1e12 && max < 5e12 && isNonDecreasing(nums)) return { ...num, kind: 'epoch', epochUnit: 'ms', confidence: 0.85, reason: 'numbers near 1.7 trillion that grow: milliseconds since 1970' };
+    if (min >= 1e9 && max < 5e9 && mostlyIncreasing(nums)) return { ...num, kind: 'epoch', epochUnit: 's', confidence: 0.85, reason: 'numbers near 1.7 billion that grow: seconds since 1970' };
+    if (min >= 1e12 && max < 5e12 && mostlyIncreasing(nums)) return { ...num, kind: 'epoch', epochUnit: 'ms', confidence: 0.85, reason: 'numbers near 1.7 trillion that grow: milliseconds since 1970' };
     if (isNonDecreasing(nums) && min >= 0 && (scores.time > 0 || scores.index > 0)) {
       if (scores.index > scores.time || (scores.time === 0 && stepsOfOne(nums))) return { ...num, kind: 'index', confidence: 0.8, reason: 'sample numbers counting up by one' };
       return { ...num, kind: 'elapsed', elapsedUnit: words.includes('ms') ? 'ms' : 's', confidence: 0.8, reason: 'times counting up from the start' };
@@ -210,7 +217,7 @@ export function detectColumn(index: number, name: string, unitText: string | nul
     if (isNonDecreasing(nums) && stepsOfOne(nums)) return { ...num, kind: 'index', confidence: 0.5, reason: 'numbers counting up by one' };
     return { ...num, kind: 'number', confidence: 0.3, reason: 'numbers with a name Plumeward does not know' };
   }
-  if (share(st.role, st.n) >= 0.8 && st.distinct.size <= 6 && (scores.role > 0 || scores.tag === 0)) {
+  if (share(st.role, st.n) >= 0.8 && st.distinct.size <= 6) {
     return { ...base, kind: 'role', confidence: scores.role > 0 ? 0.9 : 0.6, reason: `point roles (${[...st.distinct].join(', ')})`, valueShare: share(st.role, st.n) };
   }
   if (scores.tag > 0 || share(st.taglike, st.n) >= 0.8) {

@@ -103,7 +103,8 @@ function modeOf(counts: number[]): number {
 function chooseDelimiter(lines: string[]): { delimiter: Delimiter; fields: number; confidence: number; reason: string } {
   const sep = /^\s*"?sep=(.)"?\s*$/i.exec(lines[0] ?? '');
   if (sep && (DELIMITERS as readonly string[]).includes(sep[1])) {
-    return { delimiter: sep[1] as Delimiter, fields: 0, confidence: 1, reason: `the first line says sep=${sep[1]}` };
+    const mode = modeOf(lines.slice(1).map((l) => (l.trim() ? countFields(l, sep[1]) : 0)));
+    return { delimiter: sep[1] as Delimiter, fields: mode, confidence: 1, reason: `the first line says sep=${sep[1]}` };
   }
   const scored = DELIMITERS.map((d) => {
     const counts = lines.map((l) => (l.trim() ? countFields(l, d) : 0));
@@ -243,14 +244,17 @@ function suggestRole(columns: DetectedColumn[], preamble: Preamble, tagValues: s
   return { value: { from: 'none' }, confidence: 0.5, reason: 'no point-role column or key: every test is a trap test' };
 }
 
-function suggestLink(role: RoleSource, preamble: Preamble, tagKey: string | null): FieldSuggestion<ReferenceLink> {
+function suggestLink(role: RoleSource, preamble: Preamble, tagKey: string | null, referencesShareTrapTags: boolean | null): FieldSuggestion<ReferenceLink> {
   if (role.from === 'tag-pattern') return { value: { by: 'tag-pattern', pattern: `^(?<trap>.+?)[-_ ]${REFERENCE_SUFFIX}$` }, confidence: 0.7, reason: 'the trap tag is the reference tag without its suffix' };
   if (role.from === 'preamble') {
     const key = preamble.entries.find((e) => e.key !== tagKey && keyHasWord(e.key, PREAMBLE_KEY_WORDS.link) && looksLikeTag(e.value));
     if (key) return { value: { by: 'preamble', key: key.key }, confidence: 0.7, reason: `the preamble line "${key.key}: ${key.value}" names the trap` };
     return { value: { by: 'previous-test' }, confidence: 0.4, reason: 'no key names the trap: a reference belongs to the test before it' };
   }
-  if (role.from === 'column') return { value: { by: 'same-tag' }, confidence: 0.6, reason: 'references carry their trap\'s tag (else choose "the test before it")' };
+  if (role.from === 'column') {
+    if (referencesShareTrapTags === false) return { value: { by: 'previous-test' }, confidence: 0.6, reason: 'reference rows carry tags of their own: each belongs to the trap test before it' };
+    return { value: { by: 'same-tag' }, confidence: referencesShareTrapTags ? 0.85 : 0.5, reason: "references carry their trap's tag" };
+  }
   return { value: { by: 'same-tag' }, confidence: 1, reason: 'no reference points' };
 }
 
@@ -371,7 +375,17 @@ export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDete
   const tag = suggestTag(columns, preamble, baseName);
   const tagValues = tag?.value.from === 'column' ? [...new Set(rows.map((r) => (r[(tag.value as { column: number }).column] ?? '').trim()))] : [];
   const role = suggestRole(columns, preamble, tagValues);
-  const link = suggestLink(role.value, preamble, tag?.value.from === 'preamble' ? tag.value.key : null);
+  let shared: boolean | null = null;
+  if (role.value.from === 'column' && tag?.value.from === 'column') {
+    const rc = role.value.column;
+    const tc = tag.value.column;
+    const refs = new Set(role.value.referenceValues.map((v) => v.trim()));
+    const trapTags = new Set<string>();
+    const refTags = new Set<string>();
+    for (const r of rows) ((refs.has((r[rc] ?? '').trim()) ? refTags : trapTags)).add((r[tc] ?? '').trim());
+    if (refTags.size) shared = [...refTags].some((t) => trapTags.has(t));
+  }
+  const link = suggestLink(role.value, preamble, tag?.value.from === 'preamble' ? tag.value.key : null, shared);
   const mapping: SuggestedMapping = {
     time,
     level: levelCol ? { value: { column: levelCol.index, unit: levelCol.levelUnit ?? 'dB' }, confidence: levelCol.confidence, reason: `"${levelCol.name}": ${levelCol.reason}` } : null,
