@@ -8,7 +8,7 @@ import { idSchema, optionalText, pageQuery } from './common';
 export const tagSchema = z
   .string()
   .trim()
-  .min(1, 'A tag is required.')
+  .min(1, { error: 'A tag is required.', abort: true })
   .max(40, 'A tag is at most 40 characters.')
   .regex(/^[A-Za-z0-9][A-Za-z0-9._/-]*$/, 'A tag is letters, digits and . _ / - (starting with a letter or digit).');
 

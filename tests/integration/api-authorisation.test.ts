@@ -1,0 +1,116 @@
+// Every API route × every role × own site / other site / no session, with the exact status.
+// Generated from the route list (lib/api/routes.ts): a route without a sample here fails.
+import { beforeAll, describe, expect, it } from 'vitest';
+import { ROUTES, type RouteName } from '@/lib/api/routes';
+import type { RouteSpec } from '@/lib/api/spec';
+import { roleMay } from '@/lib/auth/permissions';
+import { ROLES, type Role } from '@/lib/domain/vocabulary';
+import { demoSites, newUser, signInAdmin, type SiteIds } from '../support/fixtures';
+import { Client, unique } from '../support/http';
+
+type Ctx = { admin: Client; analystId: number };
+type Call = { params: Record<string, number>; body?: unknown };
+type Sample = (ids: SiteIds, ctx: Ctx) => Promise<Call> | Call;
+
+const code = () => `T${Math.random().toString(36).slice(2, 10).toUpperCase()}`.slice(0, 12);
+const csv = () => `tag,trap_type,pressure_barg\n${unique('RG')},thermodynamic_disc,8\n`;
+
+const SAMPLES: Record<RouteName, Sample> = {
+  me: () => ({ params: {} }),
+  listSites: () => ({ params: {} }),
+  createSite: () => ({ params: {}, body: { name: unique('Site'), code: code(), timeZone: 'Europe/London', currency: 'EUR', unitSystem: 'si' } }),
+  getSite: (s) => ({ params: { siteId: s.siteId } }),
+  updateSite: (s) => ({ params: { siteId: s.siteId }, body: { ambientC: 20 } }),
+  listAreas: (s) => ({ params: { siteId: s.siteId } }),
+  createArea: (s) => ({ params: { siteId: s.siteId }, body: { name: unique('Area') } }),
+  updateArea: (s) => ({ params: { areaId: s.areaId }, body: { description: unique('described') } }),
+  listTraps: (s) => ({ params: { siteId: s.siteId } }),
+  createTrap: (s) => ({ params: { siteId: s.siteId }, body: { tag: unique('TR'), trapType: 'inverted_bucket', pressureBarg: 6 } }),
+  getTrap: (s) => ({ params: { trapId: s.trapId } }),
+  updateTrap: (s) => ({ params: { trapId: s.trapId }, body: { location: unique('moved') } }),
+  previewRegisterImport: (s) => ({ params: { siteId: s.siteId }, body: { csv: csv() } }),
+  applyRegisterImport: (s) => ({ params: { siteId: s.siteId }, body: { csv: csv() } }),
+  listSurveys: (s) => ({ params: { siteId: s.siteId } }),
+  createSurvey: (s) => ({ params: { siteId: s.siteId }, body: { name: unique('Survey'), startsOn: '2027-03-01', endsOn: '2027-03-05' } }),
+  listUsers: () => ({ params: {} }),
+  createUser: () => ({ params: {}, body: { email: `${unique('u')}@plumeward.example`, name: 'New', role: 'viewer', password: 'long-enough-pass', siteIds: [] } }),
+  updateUser: async (_s, { admin }) => {
+    const user = await admin.post('/api/users', { email: `${unique('u')}@plumeward.example`, name: 'Target', role: 'viewer', password: 'long-enough-pass', siteIds: [] });
+    return { params: { userId: user.body.id }, body: { name: unique('Renamed') } };
+  },
+  listApiTokens: () => ({ params: {} }),
+  createApiToken: (_s, { analystId }) => ({ params: {}, body: { name: unique('script'), userId: analystId } }),
+  revokeApiToken: async (_s, { admin, analystId }) => {
+    const token = await admin.post('/api/api-tokens', { name: unique('to-revoke'), userId: analystId });
+    return { params: { tokenId: token.body.id } };
+  },
+};
+
+function url(spec: RouteSpec, params: Record<string, number>) {
+  return spec.path.replace(/\{(\w+)\}/g, (_, name: string) => String(params[name]));
+}
+
+function call(client: Client, spec: RouteSpec, c: Call) {
+  return client.request(spec.method, url(spec, c.params), c.body);
+}
+
+const hasSite = (spec: RouteSpec) => /\{(siteId|areaId|trapId|surveyId)\}/.test(spec.path);
+
+describe('API authorisation, route by route', () => {
+  let ctx: Ctx;
+  let sites: { own: SiteIds; other: SiteIds };
+  const clients = {} as Record<Role, Client>;
+
+  beforeAll(async () => {
+    const admin = await signInAdmin();
+    sites = await demoSites(admin);
+    clients.admin = admin;
+    // Everyone but the admin belongs to the own site only, so the other site must look absent.
+    for (const role of ROLES.filter((r) => r !== 'admin')) clients[role] = (await newUser(admin, role, [sites.own.siteId])).client;
+    const analyst = await clients.analyst.get('/api/me');
+    ctx = { admin, analystId: analyst.body.userId };
+  });
+
+  it('has a sample for every route in the route list', () => {
+    expect(Object.keys(SAMPLES).sort()).toEqual(Object.keys(ROUTES).sort());
+  });
+
+  const entries = Object.entries(ROUTES) as [RouteName, RouteSpec][];
+
+  it.each(entries)('%s: 401 without a session', async (name, spec) => {
+    const res = await call(new Client(), spec, await SAMPLES[name](sites.own, ctx));
+    expect(res.status).toBe(401);
+    expect(res.body.error.code).toBe('unauthenticated');
+  });
+
+  for (const role of ROLES) {
+    it.each(entries)(`%s as ${role}: allowed on own site, or 403`, async (name, spec) => {
+      const res = await call(clients[role], spec, await SAMPLES[name](sites.own, ctx));
+      if (roleMay(role, spec.permission)) {
+        expect(res.status, JSON.stringify(res.body)).toBe(spec.status ?? 200);
+      } else {
+        expect(res.status, JSON.stringify(res.body)).toBe(403);
+        expect(res.body.error.code).toBe('forbidden');
+      }
+    });
+  }
+
+  const siteRoutes = entries.filter(([, spec]) => hasSite(spec));
+  for (const role of ROLES.filter((r) => r !== 'admin')) {
+    it.each(siteRoutes.filter(([, spec]) => roleMay(role, spec.permission)))(
+      `%s as ${role}: another site's record answers 404`,
+      async (name, spec) => {
+        const res = await call(clients[role], spec, await SAMPLES[name](sites.other, ctx));
+        expect(res.status, JSON.stringify(res.body)).toBe(404);
+        expect(res.body.error.code).toBe('not_found');
+      },
+    );
+  }
+
+  it.each(siteRoutes)('%s as admin: a record that does not exist answers 404', async (name, spec) => {
+    const sample = await SAMPLES[name](sites.own, ctx);
+    const missing = Object.fromEntries(Object.keys(sample.params).map((k) => [k, 999_999]));
+    const res = await call(clients.admin, spec, { ...sample, params: missing });
+    expect(res.status).toBe(404);
+  });
+});

@@ -1,0 +1,81 @@
+// Global setup of the app tier: a fresh SQLite file with the real migrations and the demo seed,
+// and the built app (`next build` has run) served on a free loopback port. Tests reach it over HTTP.
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+import path from 'node:path';
+import type { TestProject } from 'vitest/node';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+    dbPath: string;
+  }
+}
+
+const root = path.resolve(__dirname, '../..');
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = net.createServer();
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as net.AddressInfo;
+      server.close(() => resolve(port));
+    });
+    server.on('error', reject);
+  });
+}
+
+function runDb(command: string, env: NodeJS.ProcessEnv) {
+  const result = spawnSync(process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/db.ts', command], { cwd: root, env, encoding: 'utf8' });
+  if (result.status !== 0) throw new Error(`db ${command} failed:\n${result.stdout}\n${result.stderr}`);
+}
+
+async function waitUntilUp(url: string, server: ChildProcess, log: () => string) {
+  const deadline = Date.now() + 60_000;
+  while (Date.now() < deadline) {
+    if (server.exitCode !== null) throw new Error(`The app exited with ${server.exitCode}:\n${log()}`);
+    try {
+      if ((await fetch(`${url}/api/openapi.json`)).ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`The app did not answer within 60 s:\n${log()}`);
+}
+
+export default async function setup(project: TestProject) {
+  if (!fs.existsSync(path.join(root, '.next', 'BUILD_ID'))) {
+    throw new Error('No production build: run `npm run build` first (npm test does).');
+  }
+  fs.mkdirSync(path.join(root, 'tmp'), { recursive: true });
+  const dir = fs.mkdtempSync(path.join(root, 'tmp', 'app-tests-'));
+  const dbPath = path.join(dir, 'plumeward.sqlite');
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    PLUMEWARD_DB: dbPath,
+    NEXTAUTH_URL: baseUrl,
+    NEXTAUTH_SECRET: 'test-secret-for-this-run-only',
+    NEXT_TELEMETRY_DISABLED: '1',
+    NODE_ENV: 'production',
+  };
+  runDb('migrate', env);
+  runDb('seed', env);
+
+  let output = '';
+  const server = spawn(process.execPath, [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-p', String(port), '-H', '127.0.0.1'], { cwd: root, env });
+  server.stdout?.on('data', (d) => (output += d));
+  server.stderr?.on('data', (d) => (output += d));
+  await waitUntilUp(baseUrl, server, () => output);
+
+  project.provide('baseUrl', baseUrl);
+  project.provide('dbPath', dbPath);
+
+  return async () => {
+    server.kill('SIGTERM');
+    fs.writeFileSync(path.join(dir, 'server.log'), output);
+  };
+}

@@ -1,0 +1,29 @@
+// Records the app tests build on, created through the API as an admin would.
+import type { Role } from '@/lib/domain/vocabulary';
+import { Client, DEMO, signedIn, unique } from './http';
+
+export type SiteIds = { siteId: number; areaId: number; trapId: number; surveyId: number };
+
+/** The demo's two sites by code, with one area, trap and survey each (FV = own, SM = other). */
+export async function demoSites(admin: Client): Promise<{ own: SiteIds; other: SiteIds }> {
+  const sites = (await admin.get('/api/sites')).body.items as { id: number; code: string }[];
+  const ids = async (code: string): Promise<SiteIds> => {
+    const siteId = sites.find((s) => s.code === code)!.id;
+    const areaId = (await admin.get(`/api/sites/${siteId}/areas`)).body.items[0].id;
+    const trapId = (await admin.get(`/api/sites/${siteId}/traps?pageSize=1`)).body.items[0].id;
+    const surveyId = (await admin.get(`/api/sites/${siteId}/surveys`)).body.items[0].id;
+    return { siteId, areaId, trapId, surveyId };
+  };
+  return { own: await ids('FV'), other: await ids('SM') };
+}
+
+/** A new user of a role, member of the given sites, already signed in. */
+export async function newUser(admin: Client, role: Role, siteIds: number[]) {
+  const email = `${unique(role)}@plumeward.example`.toLowerCase();
+  const password = 'a-long-test-password';
+  const created = await admin.post('/api/users', { email, name: `Test ${role}`, role, password, siteIds });
+  if (created.status !== 201) throw new Error(`Could not create user: ${JSON.stringify(created.body)}`);
+  return { id: created.body.id as number, email, password, client: await signedIn(email, password) };
+}
+
+export const signInAdmin = () => signedIn(DEMO.admin.email, DEMO.admin.password);
