@@ -5,6 +5,7 @@ import { detectLayout } from '@/lib/import/detect-layout';
 import { parseInstrumentProfile, type InstrumentProfile } from '@/lib/import/instrument-profile';
 import { readTests } from '@/lib/import/read-tests';
 import type { NormalisedTest } from '@/lib/import/normalised-test';
+import type { ExpectedFile } from '@/fixtures/meters/expected-types';
 
 /**
  * Every meter fixture read with its instrument profile must give exactly the
@@ -14,33 +15,11 @@ import type { NormalisedTest } from '@/lib/import/normalised-test';
 
 const ROOT = join(__dirname, '../../../fixtures/meters');
 
-interface Expected {
-  file: string;
-  profile: string;
-  timeZone: string;
-  detect: Record<string, unknown> & { time: Record<string, unknown>; tag: Record<string, unknown> };
-  tests: {
-    tag: string;
-    role: string;
-    linkedTrapTag: string | null;
-    startedAt: string;
-    sampleCount: number;
-    regular: boolean;
-    sampleRateHz?: number;
-    durationS: number;
-    firstLine: number;
-    lastLine: number;
-    levelDb: { mean: number; min: number; max: number };
-    temperatureC: { mean: number; min: number; max: number } | null;
-  }[];
-  problems: { code: string; line: number }[];
-}
-
 const cases = readdirSync(ROOT, { recursive: true, encoding: 'utf8' })
   .filter((f) => f.endsWith('.expected.json'))
   .sort()
   .map((rel) => {
-    const expected = JSON.parse(readFileSync(join(ROOT, rel), 'utf8')) as Expected;
+    const expected = JSON.parse(readFileSync(join(ROOT, rel), 'utf8')) as ExpectedFile;
     const dataPath = join(ROOT, rel.replace(/\.expected\.json$/, ''));
     return { rel: rel.replace(/\.expected\.json$/, ''), expected, bytes: new Uint8Array(readFileSync(dataPath)) };
   });
