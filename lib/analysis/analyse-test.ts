@@ -16,7 +16,7 @@ import { computeLevelStatistics, type LevelStatistics } from './level-statistics
 import { checkReference, type ReferenceCheck } from './reference-check';
 import { smoothLevel } from './smoothing';
 import { estimateSteamLoss, type SteamLossEstimate } from './steam-loss';
-import { assessTemperature, type TemperatureAssessment } from './temperature';
+import { assessTemperature, summariseTemperature, type TemperatureAssessment, type TemperatureSummary } from './temperature';
 import { checkTimebase, typicalPeriodS, type Timebase } from './timebase';
 import type { TrapType } from './trap-types';
 import { suggestVerdict, type SuggestedVerdict } from './verdict';
@@ -48,7 +48,7 @@ export interface TestAnalysis {
   level: LevelStatistics;
   cycles: CycleAnalysis & { clickRejection: boolean; baselineMode: 'global' | 'rolling'; baselineDb: { min: number; max: number } };
   bands: ResolvedBands & { shares: BandShares };
-  temperature: TemperatureAssessment & { statistics: LevelStatistics | null };
+  temperature: TemperatureAssessment & { summary: TemperatureSummary | null };
   reference: ReferenceCheck;
   verdict: SuggestedVerdict;
   /** Present when the verdict loses steam (blowing, leaking) and the line pressure is known. */
@@ -61,16 +61,6 @@ export interface TestAnalysis {
 
 function toFloat32(values: Float32Array | Float64Array | number[]): Float32Array {
   return values instanceof Float32Array ? values : Float32Array.from(values);
-}
-
-function finiteTemperatures(values: ArrayLike<number> | null | undefined): Float64Array | null {
-  if (!values || values.length === 0) return null;
-  let count = 0;
-  for (let i = 0; i < values.length; i++) if (Number.isFinite(values[i])) count++;
-  if (count === 0) return null;
-  const out = new Float64Array(count);
-  for (let i = 0, k = 0; i < values.length; i++) if (Number.isFinite(values[i])) out[k++] = values[i];
-  return out;
 }
 
 export function analyseTest(input: TestInput, overrides: ParamOverrides | AnalysisParams = {}): TestAnalysis {
@@ -94,9 +84,8 @@ export function analyseTest(input: TestInput, overrides: ParamOverrides | Analys
   const cycles = detectCycles(smoothed.level, baseline.levelDb, input.timebase, bands.quietMaxDb, periodS, params.intervals);
   const shares = bandShares(smoothed.level, input.timebase, bands);
 
-  const temperatures = finiteTemperatures(input.temperatureC);
-  const temperatureStatistics = temperatures ? computeLevelStatistics(temperatures) : null;
-  const temperature = assessTemperature(temperatureStatistics?.median ?? null, trap.pressureBarg, trap.type, params);
+  const temperatureSummary = summariseTemperature(input.temperatureC);
+  const temperature = assessTemperature(temperatureSummary?.medianC ?? null, trap.pressureBarg, trap.type, params);
   const reference = checkReference(statistics.mean, input.referenceMeanDb, params.reference.marginDb);
 
   const verdict = suggestVerdict(
@@ -135,7 +124,7 @@ export function analyseTest(input: TestInput, overrides: ParamOverrides | Analys
       baselineDb: { min: baseline.minDb, max: baseline.maxDb },
     },
     bands: { ...bands, shares },
-    temperature: { ...temperature, statistics: temperatureStatistics },
+    temperature: { ...temperature, summary: temperatureSummary },
     reference,
     verdict,
     loss,

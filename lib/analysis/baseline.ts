@@ -8,21 +8,26 @@
 // linearly between block centres. A test no longer than windowS uses the single
 // global percentile, which is the brief's definition.
 
-import { quantile } from 'simple-statistics';
 import type { AnalysisParams } from './defaults';
+import { quantileOfRange, quantiles } from './quantiles';
 import { durationS, sampleTimeS, type Timebase } from './timebase';
 
 export interface Baseline {
   /** Floor per reading, dB. */
   levelDb: Float32Array;
   mode: 'global' | 'rolling';
-  /** The global quantile of the smoothed level, dB. */
-  globalDb: number;
   minDb: number;
   maxDb: number;
 }
 
 function blockStarts(tb: Timebase, count: number, blockS: number): number[] {
+  if (tb.kind === 'regular') {
+    const length = Math.max(1, Math.round(blockS * tb.rateHz));
+    const starts: number[] = [];
+    for (let s = 0; s < count; s += length) starts.push(s);
+    if (starts.length > 1 && count - starts[starts.length - 1] < length / 2) starts.pop();
+    return starts;
+  }
   const starts = [0];
   let next = sampleTimeS(tb, 0) + blockS;
   for (let i = 1; i < count; i++) {
@@ -45,11 +50,14 @@ function rollingFloor(level: Float32Array, tb: Timebase, p: AnalysisParams['base
   const blocks = starts.length;
   const centre = new Float64Array(blocks);
   const blockFloor = new Float64Array(blocks);
+  let longest = 0;
+  for (let b = 0; b < blocks; b++) longest = Math.max(longest, (b + 1 < blocks ? starts[b + 1] : n) - starts[b]);
+  const scratch = new Float64Array(longest);
   for (let b = 0; b < blocks; b++) {
     const s = starts[b];
     const e = b + 1 < blocks ? starts[b + 1] : n;
     centre[b] = 0.5 * (sampleTimeS(tb, s) + sampleTimeS(tb, e - 1));
-    blockFloor[b] = quantile(level.subarray(s, e) as unknown as number[], p.quantile);
+    blockFloor[b] = quantileOfRange(level, s, e, p.quantile, scratch);
   }
   const envelope = new Float64Array(blocks);
   const half = p.windowS / 2;
@@ -59,31 +67,38 @@ function rollingFloor(level: Float32Array, tb: Timebase, p: AnalysisParams['base
     for (let k = b + 1; k < blocks && centre[k] - centre[b] <= half; k++) low = Math.min(low, blockFloor[k]);
     envelope[b] = low;
   }
-  let b = 0;
-  for (let i = 0; i < n; i++) {
-    const t = sampleTimeS(tb, i);
-    while (b + 1 < blocks && centre[b + 1] <= t) b++;
-    if (t <= centre[0]) out[i] = envelope[0];
-    else if (b + 1 >= blocks) out[i] = envelope[blocks - 1];
-    else {
-      const f = (t - centre[b]) / (centre[b + 1] - centre[b]);
-      out[i] = envelope[b] + f * (envelope[b + 1] - envelope[b]);
+  // Flat before the first block centre and after the last, linear in between. Reading
+  // times are computed here rather than through sampleTimeS: this loop runs once per reading.
+  const offsets = tb.kind === 'irregular' ? tb.offsetsS : null;
+  const start = tb.kind === 'regular' ? (tb.startS ?? 0) : 0;
+  const period = tb.kind === 'regular' ? 1 / tb.rateHz : 0;
+  let i = 0;
+  for (; i < n && (offsets ? offsets[i] : start + i * period) <= centre[0]; i++) out[i] = envelope[0];
+  for (let b = 0; b + 1 < blocks; b++) {
+    const t0 = centre[b];
+    const t1 = centre[b + 1];
+    const e0 = envelope[b];
+    const slope = (envelope[b + 1] - e0) / (t1 - t0);
+    for (; i < n; i++) {
+      const t = offsets ? offsets[i] : start + i * period;
+      if (t > t1) break;
+      out[i] = e0 + (t - t0) * slope;
     }
   }
+  for (; i < n; i++) out[i] = envelope[blocks - 1];
 }
 
 export function computeBaseline(level: Float32Array, tb: Timebase, p: AnalysisParams['baseline']): Baseline {
   const n = level.length;
-  const globalDb = quantile(level as unknown as number[], p.quantile);
   const out = new Float32Array(n);
   const rolling = p.mode === 'rolling' && durationS(tb, n) > p.windowS;
   if (rolling) rollingFloor(level, tb, p, out);
-  else out.fill(globalDb);
+  else out.fill(quantiles(level, [p.quantile])[0]);
   let minDb = Infinity;
   let maxDb = -Infinity;
   for (let i = 0; i < n; i++) {
     if (out[i] < minDb) minDb = out[i];
     if (out[i] > maxDb) maxDb = out[i];
   }
-  return { levelDb: out, mode: rolling ? 'rolling' : 'global', globalDb, minDb, maxDb };
+  return { levelDb: out, mode: rolling ? 'rolling' : 'global', minDb, maxDb };
 }

@@ -8,10 +8,11 @@
 // Σ(x − x̄) (the "corrected two-pass" algorithm, Chan, Golub & LeVeque 1983) and the
 // lag-1 autocorrelation numerator, so the whole series is read twice, not five times.
 //
-// Percentiles use simple-statistics' quantile (selection, linear interpolation
-// between order statistics — R type 7), which avoids sorting two million readings.
+// Percentiles follow simple-statistics' quantile (linear interpolation between order
+// statistics — R type 7), computed by ./quantiles so that two million readings are
+// neither sorted nor copied.
 
-import { quantile } from 'simple-statistics';
+import { quantiles } from './quantiles';
 
 export interface LevelStatistics {
   count: number;
@@ -80,7 +81,7 @@ export function computeLevelStatistics(x: Numbers): LevelStatistics {
   const dLast = x[n - 1] - (mean - correction);
   sumLag += -correction * (2 * sumDev - dFirst - dLast) + (n - 1) * correction * correction;
 
-  const [p10, median, p90] = quantile(x as number[], [0.1, 0.5, 0.9]);
+  const [p10, median, p90] = quantiles(x, [0.1, 0.5, 0.9], first.min, first.max);
   return {
     count: n,
     mean,

@@ -6,6 +6,7 @@
 //  - cold: the surface is nearer ambient than saturation.
 
 import type { AnalysisParams } from './defaults';
+import { quantiles } from './quantiles';
 import { saturationTemperatureAtGaugeC } from './saturated-steam';
 import type { TrapType } from './trap-types';
 
@@ -21,6 +22,45 @@ export interface TemperatureAssessment {
   beyondAllowance: boolean | null;
   /** Nearer ambient than saturation; null when it cannot be judged. */
   cold: boolean | null;
+}
+
+export interface TemperatureSummary {
+  /** Finite readings; a meter may leave gaps (NaN) in the temperature column. */
+  count: number;
+  meanC: number;
+  medianC: number;
+  minC: number;
+  maxC: number;
+}
+
+/**
+ * Summary of the finite surface readings; null when there are none. Count, mean, min
+ * and max use every reading; the median uses at most ~65,000 evenly spaced readings,
+ * plenty for a surface temperature that changes over seconds, not samples.
+ */
+export function summariseTemperature(values: ArrayLike<number> | null | undefined): TemperatureSummary | null {
+  if (!values || values.length === 0) return null;
+  const n = values.length;
+  let count = 0;
+  let sum = 0;
+  let minC = Infinity;
+  let maxC = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const v = values[i];
+    if (!(v - v === 0)) continue; // NaN and ±Infinity are gaps
+    count++;
+    sum += v;
+    if (v < minC) minC = v;
+    if (v > maxC) maxC = v;
+  }
+  if (count === 0) return null;
+  const step = Math.max(1, Math.floor(n / 65_536));
+  const picked: number[] = [];
+  for (let i = 0; i < n; i += step) if (Number.isFinite(values[i])) picked.push(values[i]);
+  // Sparse readings can all fall between the picks: then take every finite one.
+  if (picked.length === 0) for (let i = 0; i < n; i++) if (Number.isFinite(values[i])) picked.push(values[i]);
+  // Temperatures span a few hundred kelvin: a plain sum loses nothing that matters here.
+  return { count, meanC: sum / count, medianC: quantiles(picked, [0.5])[0], minC, maxC };
 }
 
 export function designAllowanceK(trapType: TrapType | null, p: AnalysisParams['temperature']): number {
