@@ -1,16 +1,10 @@
-// Trap types as the register CSV spells them (BRIEF §3), and the families the
-// decision table reasons about. Family membership follows BRIEF §3: disc,
-// inverted bucket and thermostatic traps cycle; float traps modulate.
+// The families the decision table reasons about, over the trap types of the domain
+// vocabulary (the register CSV's codes, BRIEF §3). Family membership follows BRIEF §3:
+// disc, inverted bucket and thermostatic traps cycle; float traps modulate.
 
-export const TRAP_TYPES = [
-  'thermodynamic_disc',
-  'thermostatic_balanced_pressure',
-  'thermostatic_bimetallic',
-  'float_thermostatic',
-  'inverted_bucket',
-] as const;
+import { TRAP_TYPES, type TrapType } from '../domain/vocabulary';
 
-export type TrapType = (typeof TRAP_TYPES)[number];
+export { TRAP_TYPES, type TrapType };
 
 export function isTrapType(value: unknown): value is TrapType {
   return typeof value === 'string' && (TRAP_TYPES as readonly string[]).includes(value);

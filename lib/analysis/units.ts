@@ -6,7 +6,9 @@
 //  - 1 Btu (International Table) = 1055.05585262 J, so 1 Btu/lb = 2.326 kJ/kg exactly;
 //  - °F = °C × 9/5 + 32; a temperature difference of 1 K = 1.8 °F.
 
-export type UnitSystem = 'si' | 'us';
+import type { UnitSystem } from '../domain/vocabulary';
+
+export type { UnitSystem };
 
 export const KG_PER_LB = 0.45359237;
 export const MM_PER_IN = 25.4;
