@@ -253,8 +253,8 @@ export function createTestReader(profile: InstrumentProfile, opts: ReadOptions):
   function onRow(row: RowView): boolean {
     counts.lines = row.lastLine;
     if (phase === 'preamble') {
-      if (row.count > 1 || row.ends[0] > row.starts[0]) nonBlankLines++;
       const raw = row.src.slice(row.rowStart, row.rowEnd);
+      if (raw.trim()) nonBlankLines++;
       const isHeader = expectedHeader.length
         ? row.count >= expectedHeader.length && sameHeader(row)
         : row.count >= 2 && !parsePreambleLine(raw, profile.delimiter);
