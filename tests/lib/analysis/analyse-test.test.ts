@@ -53,6 +53,15 @@ describe('analyseTest', () => {
     expect(r.verdict.code).toBe('inconclusive');
   });
 
+  it('degenerate but valid tests: one reading, and a constant level', () => {
+    const one = analyseTest({ timebase: regularTimebase(2), levelDb: [14] });
+    expect(one.cycles.testDurationS).toBe(0.5);
+    expect(one.cycles.closedIntervals).toHaveLength(1);
+    const flat = analyseTest({ timebase: regularTimebase(50), levelDb: new Float32Array(100_000).fill(18) });
+    expect(flat.level).toMatchObject({ median: 18, p10: 18, sd: 0, lag1Autocorrelation: null });
+    expect(flat.cycles.dutyCycle).toBe(0);
+  });
+
   it('refuses bad input cleanly', () => {
     expect(() => analyseTest({ timebase: regularTimebase(10), levelDb: [] })).toThrow(RangeError);
     expect(() => analyseTest({ timebase: regularTimebase(0), levelDb: [1, 2] })).toThrow(RangeError);
