@@ -46,7 +46,7 @@ function papaParse(text: string): number {
   // String input in chunk mode runs synchronously; `complete` is still required by the types.
   Papa.parse<string[]>(text, {
     chunkSize: 1 << 20,
-    chunk: (r) => {
+    chunk: (r: Papa.ParseResult<string[]>) => {
       rows += r.data.length;
     },
     complete: () => {},
