@@ -36,7 +36,7 @@ const VOCABULARY: Record<FieldKind, { words: string[]; phrases: string[] }> = {
     ],
     phrases: ['date time', 'date heure', 'fecha hora', 'marca de tiempo', 'datum tijd', 'datum uhrzeit'],
   },
-  date: { words: ['date', 'datum', 'fecha', 'day', 'tag_datum'], phrases: [] },
+  date: { words: ['date', 'datum', 'fecha', 'day'], phrases: [] },
   index: {
     words: ['sample', 'samples', 'index', 'idx', 'nr', 'no', 'num', 'count', 'probe', 'messung', 'echantillon', 'muestra', 'monster', 'meting'],
     phrases: ['sample no', 'sample number', 'lfd nr', 'n°'],

@@ -29,7 +29,12 @@ export interface ReadOptions {
   hints?: string[];
   /** IANA zone for local times when the profile leaves it to the site. */
   timeZone?: string;
-  /** Called with each test as soon as it is complete (then it is not kept in the result). */
+  /**
+   * Called with each test as soon as it is complete (then it is not kept in
+   * the result), so a long day file needs memory for one test at a time. If
+   * the result then holds an "error" problem, the file failed: discard the
+   * tests already handed out (a file that fails writes nothing).
+   */
   onTest?: (test: NormalisedTest) => void;
   /** Problems listed one by one per code before they are only counted. */
   maxProblemsPerCode?: number;
@@ -364,6 +369,8 @@ export function createTestReader(profile: InstrumentProfile, opts: ReadOptions):
         break;
       }
       case 'index': {
+        // Without a sample-number column the row order counts; a skipped
+        // garbage line is not a reading, so it does not advance the count.
         let k = rowIndex;
         if (tc >= 0) {
           k = parseDecimal(src, row.starts[tc], row.ends[tc], mark);
