@@ -1,5 +1,6 @@
 'use client';
 
+import { SubmitButton } from '@/components/SubmitButton';
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
@@ -29,7 +30,7 @@ export function SignInForm() {
   }
 
   return (
-    <form onSubmit={onSubmit} className="space-y-4" noValidate>
+    <form method="post" onSubmit={onSubmit} className="space-y-4" noValidate>
       <label className="block">
         <span className="field-label">E-mail</span>
         <input name="email" type="email" autoComplete="username" required className="field-input" />
@@ -43,9 +44,9 @@ export function SignInForm() {
           {error}
         </p>
       )}
-      <button type="submit" className="btn-primary w-full justify-center" disabled={busy}>
+      <SubmitButton className="btn-primary w-full justify-center" busy={busy}>
         {busy ? 'Signing in…' : 'Sign in'}
-      </button>
+      </SubmitButton>
     </form>
   );
 }

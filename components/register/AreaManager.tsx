@@ -1,5 +1,6 @@
 'use client';
 
+import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError, issuesByField } from '@/components/FormError';
@@ -25,10 +26,10 @@ function AreaRow({ area, canEdit }: { area: Area; canEdit: boolean }) {
     return (
       <tr>
         <td colSpan={4}>
-          <form onSubmit={save} className="flex flex-wrap items-end gap-2">
+          <form method="post" onSubmit={save} className="flex flex-wrap items-end gap-2">
             <label className="flex-1"><span className="field-label">Name</span><input name="name" defaultValue={area.name} className="field-input" /></label>
             <label className="flex-[2]"><span className="field-label">Description</span><input name="description" defaultValue={area.description ?? ''} className="field-input" /></label>
-            <button className="btn-primary" type="submit">Save</button>
+            <SubmitButton className="btn-primary">Save</SubmitButton>
             <button className="btn-quiet" type="button" onClick={() => setEditing(false)}>Cancel</button>
             {error && <p className="field-error w-full" role="alert">{error}</p>}
           </form>
@@ -75,10 +76,10 @@ export function AreaManager({ siteId, areas, canEdit }: { siteId: number; areas:
         </table>
       </div>
       {canEdit && (
-        <form onSubmit={add} className="panel flex flex-wrap items-end gap-3 p-4" noValidate>
+        <form method="post" onSubmit={add} className="panel flex flex-wrap items-end gap-3 p-4" noValidate>
           <label className="flex-1"><span className="field-label">New area</span><input name="name" className="field-input" placeholder="e.g. Condensate Return Station" />{errors.name && <span className="field-error">{errors.name}</span>}</label>
           <label className="flex-[2]"><span className="field-label">Description</span><input name="description" className="field-input" /></label>
-          <button type="submit" className="btn-primary">Add area</button>
+          <SubmitButton className="btn-primary">Add area</SubmitButton>
           <div className="w-full"><FormError message={message} issues={issues} fields={['name', 'description']} /></div>
         </form>
       )}

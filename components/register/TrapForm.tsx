@@ -1,5 +1,6 @@
 'use client';
 
+import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError, issuesByField } from '@/components/FormError';
@@ -74,7 +75,7 @@ export function TrapForm({ siteId, areas, trap }: { siteId: number; areas: { id:
   );
 
   return (
-    <form onSubmit={onSubmit} className="panel grid gap-4 p-5 md:grid-cols-2" noValidate>
+    <form method="post" onSubmit={onSubmit} className="panel grid gap-4 p-5 md:grid-cols-2" noValidate>
       {field('tag', 'Tag', <input name="tag" defaultValue={trap?.tag} className="field-input tag-text" required aria-invalid={!!errors.tag} />, 'As painted on the trap tag, e.g. FV-EVP-031.')}
       {field('areaId', 'Area', (
         <select name="areaId" defaultValue={trap?.areaId ?? ''} className="field-input">
@@ -116,7 +117,7 @@ export function TrapForm({ siteId, areas, trap }: { siteId: number; areas: { id:
       <div className="space-y-3 md:col-span-2">
         <FormError message={message} issues={issues} fields={FIELDS} />
         <div className="flex gap-2">
-          <button type="submit" className="btn-primary" disabled={busy}>{busy ? 'Saving…' : trap ? 'Save changes' : 'Add trap'}</button>
+          <SubmitButton className="btn-primary" busy={busy}>{busy ? 'Saving…' : trap ? 'Save changes' : 'Add trap'}</SubmitButton>
           <button type="button" className="btn-quiet" onClick={() => router.back()}>Cancel</button>
         </div>
       </div>

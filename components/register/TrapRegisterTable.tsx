@@ -33,7 +33,9 @@ export function TrapRegisterTable({ siteId, areas, canEdit }: { siteId: number; 
   const queryString = search.toString();
 
   function setParams(changes: Record<string, string | null>) {
-    const next = new URLSearchParams(search.toString());
+    // From the live URL, not the render's snapshot: a debounced search and a filter chosen
+    // meanwhile must not undo each other.
+    const next = new URLSearchParams(window.location.search);
     for (const [key, value] of Object.entries(changes)) {
       if (value) next.set(key, value);
       else next.delete(key);

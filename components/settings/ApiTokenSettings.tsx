@@ -1,5 +1,6 @@
 'use client';
 
+import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError } from '@/components/FormError';
@@ -64,7 +65,7 @@ export function ApiTokenSettings({ tokens, users, sites }: { tokens: ApiTokenDto
           </tbody>
         </table>
       </div>
-      <form onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-2" noValidate>
+      <form method="post" onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-2" noValidate>
         <h2 className="font-semibold md:col-span-2">New API token</h2>
         <label><span className="field-label">Name</span><input name="name" className="field-input" placeholder="e.g. nightly export script" /></label>
         <label><span className="field-label">Owner</span><select name="userId" className="field-input">{users.map((u) => <option key={u.id} value={u.id}>{u.name}</option>)}</select></label>
@@ -72,7 +73,7 @@ export function ApiTokenSettings({ tokens, users, sites }: { tokens: ApiTokenDto
           {sites.map((s) => <label key={s.id} className="flex items-center gap-1"><input type="checkbox" name="siteIds" value={s.id} />{s.name}</label>)}
         </fieldset>
         <label className="flex items-center gap-2 text-sm"><input type="checkbox" name="readOnly" /> Read-only</label>
-        <div className="flex items-center gap-3 md:col-span-2"><button className="btn-primary" type="submit">Create token</button><FormError message={message} issues={issues} /></div>
+        <div className="flex items-center gap-3 md:col-span-2"><SubmitButton className="btn-primary">Create token</SubmitButton><FormError message={message} issues={issues} /></div>
       </form>
     </div>
   );

@@ -1,5 +1,6 @@
 'use client';
 
+import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError, issuesByField } from '@/components/FormError';
@@ -46,7 +47,7 @@ export function SiteSettings({ sites }: { sites: (SiteDto & { trapCount: number 
           </tbody>
         </table>
       </div>
-      <form onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-3" noValidate>
+      <form method="post" onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-3" noValidate>
         <h2 className="font-semibold md:col-span-3">New site</h2>
         {input('name', 'Name', { placeholder: 'e.g. Harrowgate Maltings' })}
         {input('code', 'Short code', { placeholder: 'e.g. HM', maxLength: 12 })}
@@ -56,7 +57,7 @@ export function SiteSettings({ sites }: { sites: (SiteDto & { trapCount: number 
           <select name="unitSystem" className="field-input" defaultValue="si">{UNIT_SYSTEMS.map((u) => <option key={u} value={u}>{UNIT_SYSTEM_LABELS[u]}</option>)}</select>
         </label>
         {input('ambientC', 'Ambient (°C)', { defaultValue: '20', inputMode: 'decimal' })}
-        <div className="flex items-center gap-3 md:col-span-3"><button className="btn-primary" type="submit">Create site</button><FormError message={message} issues={issues} fields={['name', 'code', 'timeZone', 'currency', 'unitSystem', 'ambientC']} /></div>
+        <div className="flex items-center gap-3 md:col-span-3"><SubmitButton className="btn-primary">Create site</SubmitButton><FormError message={message} issues={issues} fields={['name', 'code', 'timeZone', 'currency', 'unitSystem', 'ambientC']} /></div>
       </form>
     </div>
   );

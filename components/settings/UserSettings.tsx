@@ -1,5 +1,6 @@
 'use client';
 
+import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError, issuesByField } from '@/components/FormError';
@@ -40,13 +41,13 @@ function UserRow({ user, sites, selfId }: { user: UserDto; sites: Site[]; selfId
       <td><div className="font-medium">{user.name}</div><div className="text-xs text-ink-soft">{user.email}</div></td>
       {editing ? (
         <td colSpan={3}>
-          <form onSubmit={save} className="space-y-2">
+          <form method="post" onSubmit={save} className="space-y-2">
             <select name="role" defaultValue={user.role} className="field-input w-48" aria-label="Role">{ROLES.map((r) => <option key={r} value={r}>{ROLE_LABELS[r]}</option>)}</select>
             <fieldset className="flex flex-wrap gap-3 text-sm"><legend className="field-label">Sites</legend>
               {sites.map((s) => <label key={s.id} className="flex items-center gap-1"><input type="checkbox" name="siteIds" value={s.id} defaultChecked={user.siteIds.includes(s.id)} />{s.name}</label>)}
             </fieldset>
             <input name="password" type="password" className="field-input w-64" placeholder="New password (optional)" autoComplete="new-password" />
-            <div className="flex gap-2"><button className="btn-primary" type="submit">Save</button><button className="btn-quiet" type="button" onClick={() => setEditing(false)}>Cancel</button></div>
+            <div className="flex gap-2"><SubmitButton className="btn-primary">Save</SubmitButton><button className="btn-quiet" type="button" onClick={() => setEditing(false)}>Cancel</button></div>
             {error && <p className="field-error" role="alert">{error}</p>}
           </form>
         </td>
@@ -98,7 +99,7 @@ export function UserSettings({ users, sites, selfId }: { users: UserDto[]; sites
         </table>
       </div>
       <p className="text-xs text-ink-faint">A disabled user is refused on their very next request, and a changed role or site list applies at once: every request re-reads them.</p>
-      <form onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-2" noValidate>
+      <form method="post" onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-2" noValidate>
         <h2 className="font-semibold md:col-span-2">New user</h2>
         <label><span className="field-label">Name</span><input name="name" className="field-input" />{errors.name && <span className="field-error">{errors.name}</span>}</label>
         <label><span className="field-label">E-mail</span><input name="email" type="email" className="field-input" />{errors.email && <span className="field-error">{errors.email}</span>}</label>
@@ -107,7 +108,7 @@ export function UserSettings({ users, sites, selfId }: { users: UserDto[]; sites
         <fieldset className="flex flex-wrap gap-3 text-sm md:col-span-2"><legend className="field-label">Sites</legend>
           {sites.map((s) => <label key={s.id} className="flex items-center gap-1"><input type="checkbox" name="siteIds" value={s.id} />{s.name}</label>)}
         </fieldset>
-        <div className="flex items-center gap-3 md:col-span-2"><button className="btn-primary" type="submit">Create user</button><FormError message={message} issues={issues} fields={['name', 'email', 'role', 'password', 'siteIds']} /></div>
+        <div className="flex items-center gap-3 md:col-span-2"><SubmitButton className="btn-primary">Create user</SubmitButton><FormError message={message} issues={issues} fields={['name', 'email', 'role', 'password', 'siteIds']} /></div>
       </form>
     </div>
   );

@@ -1,0 +1,65 @@
+// The embedded demo: migrate and seed a local SQLite file, build the app, and serve it.
+//   npm ci && npm run demo        (PORT=3000 by default; PLUMEWARD_DB to use another file)
+import { spawn, spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import { databasePath, sequelize } from '@/lib/db';
+import { migrator, seeder } from '@/lib/migrator';
+import { DEMO_ANALYST_TOKEN, DEMO_PASSWORDS, DEMO_USERS } from '@/seeders/demo-scenario';
+
+const root = path.resolve(__dirname, '..');
+const port = Number(process.env.PORT ?? 3000);
+const url = process.env.NEXTAUTH_URL ?? `http://localhost:${port}`;
+const next = path.join(root, 'node_modules/next/dist/bin/next');
+const env = { ...process.env, NEXTAUTH_URL: url, NEXT_TELEMETRY_DISABLED: '1' };
+
+function step(title: string) {
+  console.log(`\n▸ ${title}`);
+}
+
+async function prepareDatabase() {
+  step(`Database ${databasePath()}`);
+  const migrated = await migrator(sequelize).up();
+  console.log(`  ${migrated.length} migration(s) applied`);
+  const seeded = await seeder(sequelize).up();
+  console.log(seeded.length ? `  demo scenario seeded (${seeded.map((s) => s.name).join(', ')})` : '  demo scenario already present');
+  await sequelize.close();
+}
+
+function copySampleFiles() {
+  const from = path.join(root, 'fixtures', 'meters');
+  const to = path.join(path.dirname(databasePath()), 'sample-meter-files');
+  if (!fs.existsSync(from)) return;
+  fs.cpSync(from, to, { recursive: true, filter: (src) => !src.endsWith('.ts') && !src.endsWith('.expected.json') });
+  step(`Sample meter files to try uploading: ${to}`);
+}
+
+function build() {
+  step('Building the app (about a minute)');
+  const result = spawnSync(process.execPath, [next, 'build'], { cwd: root, env, stdio: 'inherit' });
+  if (result.status !== 0) process.exit(result.status ?? 1);
+}
+
+function serve() {
+  const server = spawn(process.execPath, [next, 'start', '-p', String(port)], { cwd: root, env, stdio: 'inherit' });
+  step(`Plumeward is at ${url}`);
+  console.log('  Demo accounts (demo only; change them before real use):');
+  for (const u of DEMO_USERS) console.log(`    ${u.role.padEnd(11)} ${u.email.padEnd(30)} ${DEMO_PASSWORDS[u.role]}`);
+  console.log(`  API token of the demo analyst: ${DEMO_ANALYST_TOKEN}`);
+  console.log('  Stop with Ctrl+C.\n');
+  const stop = () => server.kill('SIGTERM');
+  process.on('SIGINT', stop);
+  process.on('SIGTERM', stop);
+  server.on('exit', (code) => process.exit(code ?? 0));
+}
+
+prepareDatabase()
+  .then(() => {
+    copySampleFiles();
+    build();
+    serve();
+  })
+  .catch((err) => {
+    console.error(err);
+    process.exit(1);
+  });
