@@ -4,6 +4,7 @@ import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError, issuesByField } from '@/components/FormError';
+import { useActionForm } from '@/components/useActionForm';
 import { createAreaAction, updateAreaAction } from '@/lib/actions/register';
 import type { FieldIssue } from '@/lib/http/zod-issues';
 
@@ -48,25 +49,8 @@ function AreaRow({ area, canEdit }: { area: Area; canEdit: boolean }) {
 }
 
 export function AreaManager({ siteId, areas, canEdit }: { siteId: number; areas: Area[]; canEdit: boolean }) {
-  const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
-  const [issues, setIssues] = useState<FieldIssue[]>([]);
-  async function add(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const formElement = event.currentTarget;
-    const form = new FormData(formElement);
-    const result = await createAreaAction({ siteId, area: { name: form.get('name'), description: form.get('description') } });
-    if (!result.ok) {
-      setMessage(result.error.message);
-      setIssues((result.error.details as FieldIssue[]) ?? []);
-      return;
-    }
-    formElement.reset();
-    setMessage(null);
-    setIssues([]);
-    router.refresh();
-  }
-  const errors = issuesByField(issues);
+  const { handler, message, issues, errors } = useActionForm();
+  const add = handler((form) => createAreaAction({ siteId, area: { name: form.get('name'), description: form.get('description') } }));
   return (
     <div className="space-y-4">
       <div className="panel overflow-x-auto">

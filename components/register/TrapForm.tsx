@@ -2,15 +2,14 @@
 
 import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
-import { FormError, issuesByField } from '@/components/FormError';
+import { FormError } from '@/components/FormError';
+import { useActionForm } from '@/components/useActionForm';
 import { createTrapAction, updateTrapAction } from '@/lib/actions/register';
 import {
   APPLICATIONS, APPLICATION_LABELS, CRITICALITIES, CRITICALITY_LABELS, DISCHARGES_TO, DISCHARGES_TO_LABELS,
   TRAP_STATUSES, TRAP_STATUS_LABELS, TRAP_TYPES, TRAP_TYPE_LABELS,
 } from '@/lib/domain/vocabulary';
 import type { TrapDto } from '@/lib/services/dto';
-import type { FieldIssue } from '@/lib/http/zod-issues';
 import { fieldIssues } from '@/lib/http/zod-issues';
 import { trapInputSchema } from '@/lib/validation/trap';
 
@@ -37,33 +36,21 @@ function readForm(form: FormData) {
 
 export function TrapForm({ siteId, areas, trap }: { siteId: number; areas: { id: number; name: string }[]; trap?: TrapDto }) {
   const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
-  const [issues, setIssues] = useState<FieldIssue[]>([]);
-  const [busy, setBusy] = useState(false);
-  const errors = issuesByField(issues);
+  const { handler, fail, message, issues, errors, busy } = useActionForm();
 
-  async function onSubmit(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const values = readForm(new FormData(event.currentTarget));
-    const checked = trapInputSchema.safeParse(values);
-    if (!checked.success) {
-      setIssues(fieldIssues(checked.error));
-      setMessage('Some fields need attention.');
-      return;
-    }
-    setBusy(true);
-    const result = trap
-      ? await updateTrapAction({ trapId: trap.id, trap: values })
-      : await createTrapAction({ siteId, trap: values });
-    setBusy(false);
-    if (!result.ok) {
-      setMessage(result.error.message);
-      setIssues(Array.isArray(result.error.details) ? (result.error.details as FieldIssue[]) : []);
-      return;
-    }
-    router.push(`/sites/${siteId}/traps/${result.data.id}`);
-    router.refresh();
-  }
+  const onSubmit = handler(
+    (form) => {
+      const values = readForm(form);
+      const checked = trapInputSchema.safeParse(values);
+      if (!checked.success) {
+        fail('Some fields need attention.', fieldIssues(checked.error));
+        return null;
+      }
+      return trap ? updateTrapAction({ trapId: trap.id, trap: values }) : createTrapAction({ siteId, trap: values });
+    },
+    (saved) => router.push(`/sites/${siteId}/traps/${saved.id}`),
+    { reset: false },
+  );
 
   const field = (name: string, label: string, input: React.ReactNode, hint?: string) => (
     <label className="block">

@@ -4,38 +4,25 @@ import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError } from '@/components/FormError';
+import { useActionForm } from '@/components/useActionForm';
 import { createApiTokenAction, revokeApiTokenAction } from '@/lib/actions/settings';
 import type { ApiTokenDto } from '@/lib/services/api-tokens';
-import type { FieldIssue } from '@/lib/http/zod-issues';
 
 type Named = { id: number; name: string };
 
 export function ApiTokenSettings({ tokens, users, sites }: { tokens: ApiTokenDto[]; users: Named[]; sites: Named[] }) {
   const router = useRouter();
   const [secret, setSecret] = useState<string | null>(null);
-  const [message, setMessage] = useState<string | null>(null);
-  const [issues, setIssues] = useState<FieldIssue[]>([]);
-  async function onSubmit(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const formElement = event.currentTarget;
-    const f = new FormData(formElement);
-    const result = await createApiTokenAction({
+  const { handler, fail, message, issues, errors } = useActionForm();
+  const onSubmit = handler(
+    (f) => createApiTokenAction({
       name: f.get('name'), userId: Number(f.get('userId')), readOnly: f.get('readOnly') === 'on', siteIds: f.getAll('siteIds').map(Number),
-    });
-    if (!result.ok) {
-      setMessage(result.error.message);
-      setIssues((result.error.details as FieldIssue[]) ?? []);
-      return;
-    }
-    formElement.reset();
-    setMessage(null);
-    setIssues([]);
-    setSecret(result.data.secret);
-    router.refresh();
-  }
+    }),
+    (token) => setSecret(token.secret),
+  );
   async function revoke(tokenId: number) {
     const result = await revokeApiTokenAction({ tokenId });
-    if (!result.ok) setMessage(result.error.message);
+    if (!result.ok) fail(result.error.message);
     router.refresh();
   }
   const siteName = (id: number) => sites.find((s) => s.id === id)?.name ?? `site ${id}`;
@@ -67,13 +54,13 @@ export function ApiTokenSettings({ tokens, users, sites }: { tokens: ApiTokenDto
       </div>
       <form method="post" onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-2" noValidate>
         <h2 className="font-semibold md:col-span-2">New API token</h2>
-        <label><span className="field-label">Name</span><input name="name" className="field-input" placeholder="e.g. nightly export script" /></label>
+        <label><span className="field-label">Name</span><input name="name" className="field-input" placeholder="e.g. nightly export script" />{errors.name && <span className="field-error">{errors.name}</span>}</label>
         <label><span className="field-label">Owner</span><select name="userId" className="field-input">{users.map((u) => <option key={u.id} value={u.id}>{u.name}</option>)}</select></label>
         <fieldset className="flex flex-wrap gap-3 text-sm"><legend className="field-label">Limit to sites (none ticked: all the owner&apos;s sites)</legend>
           {sites.map((s) => <label key={s.id} className="flex items-center gap-1"><input type="checkbox" name="siteIds" value={s.id} />{s.name}</label>)}
         </fieldset>
         <label className="flex items-center gap-2 text-sm"><input type="checkbox" name="readOnly" /> Read-only</label>
-        <div className="flex items-center gap-3 md:col-span-2"><SubmitButton className="btn-primary">Create token</SubmitButton><FormError message={message} issues={issues} /></div>
+        <div className="flex items-center gap-3 md:col-span-2"><SubmitButton className="btn-primary">Create token</SubmitButton><FormError message={message} issues={issues} fields={['name']} /></div>
       </form>
     </div>
   );

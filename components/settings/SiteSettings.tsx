@@ -1,37 +1,18 @@
 'use client';
 
 import { SubmitButton } from '@/components/SubmitButton';
-import { useRouter } from 'next/navigation';
-import { useState } from 'react';
-import { FormError, issuesByField } from '@/components/FormError';
+import { FormError } from '@/components/FormError';
+import { useActionForm } from '@/components/useActionForm';
 import { createSiteAction } from '@/lib/actions/settings';
 import { UNIT_SYSTEMS, UNIT_SYSTEM_LABELS } from '@/lib/domain/vocabulary';
 import type { SiteDto } from '@/lib/services/dto';
-import type { FieldIssue } from '@/lib/http/zod-issues';
 
 export function SiteSettings({ sites }: { sites: (SiteDto & { trapCount: number })[] }) {
-  const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
-  const [issues, setIssues] = useState<FieldIssue[]>([]);
-  const errors = issuesByField(issues);
-  async function onSubmit(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const formElement = event.currentTarget;
-    const f = new FormData(formElement);
-    const result = await createSiteAction({
-      name: f.get('name'), code: f.get('code'), timeZone: f.get('timeZone'), currency: f.get('currency'),
-      unitSystem: f.get('unitSystem'), ambientC: Number(f.get('ambientC')),
-    });
-    if (!result.ok) {
-      setMessage(result.error.message);
-      setIssues((result.error.details as FieldIssue[]) ?? []);
-      return;
-    }
-    formElement.reset();
-    setMessage(null);
-    setIssues([]);
-    router.refresh();
-  }
+  const { handler, message, issues, errors } = useActionForm();
+  const onSubmit = handler((f) => createSiteAction({
+    name: f.get('name'), code: f.get('code'), timeZone: f.get('timeZone'), currency: f.get('currency'),
+    unitSystem: f.get('unitSystem'), ambientC: Number(f.get('ambientC')),
+  }));
   const input = (name: string, label: string, props: React.InputHTMLAttributes<HTMLInputElement> = {}) => (
     <label><span className="field-label">{label}</span><input name={name} className="field-input" {...props} />{errors[name] && <span className="field-error">{errors[name]}</span>}</label>
   );

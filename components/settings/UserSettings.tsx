@@ -3,11 +3,11 @@
 import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { FormError, issuesByField } from '@/components/FormError';
+import { FormError } from '@/components/FormError';
+import { useActionForm } from '@/components/useActionForm';
 import { createUserAction, updateUserAction } from '@/lib/actions/settings';
 import { ROLES, ROLE_LABELS } from '@/lib/domain/vocabulary';
 import type { UserDto } from '@/lib/services/dto';
-import type { FieldIssue } from '@/lib/http/zod-issues';
 
 type Site = { id: number; name: string };
 
@@ -71,25 +71,8 @@ function UserRow({ user, sites, selfId }: { user: UserDto; sites: Site[]; selfId
 }
 
 export function UserSettings({ users, sites, selfId }: { users: UserDto[]; sites: Site[]; selfId: number }) {
-  const router = useRouter();
-  const [message, setMessage] = useState<string | null>(null);
-  const [issues, setIssues] = useState<FieldIssue[]>([]);
-  const errors = issuesByField(issues);
-  async function onSubmit(event: React.FormEvent<HTMLFormElement>) {
-    event.preventDefault();
-    const formElement = event.currentTarget;
-    const f = new FormData(formElement);
-    const result = await createUserAction({ email: f.get('email'), name: f.get('name'), role: f.get('role'), password: f.get('password'), siteIds: checkedSites(f) });
-    if (!result.ok) {
-      setMessage(result.error.message);
-      setIssues((result.error.details as FieldIssue[]) ?? []);
-      return;
-    }
-    formElement.reset();
-    setMessage(null);
-    setIssues([]);
-    router.refresh();
-  }
+  const { handler, message, issues, errors } = useActionForm();
+  const onSubmit = handler((f) => createUserAction({ email: f.get('email'), name: f.get('name'), role: f.get('role'), password: f.get('password'), siteIds: checkedSites(f) }));
   return (
     <div className="space-y-4">
       <div className="panel overflow-x-auto">

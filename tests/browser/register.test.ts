@@ -106,6 +106,8 @@ describe('register in the browser', () => {
     await signInThroughPage(page, DEMO.admin.email, DEMO.admin.password);
     await page.getByRole('link', { name: 'Settings' }).click();
     await page.getByRole('link', { name: 'API tokens' }).click();
+    // The users page has a Name field too: wait until the tokens page has replaced it.
+    await page.getByRole('heading', { name: 'New API token' }).waitFor();
     await page.getByLabel('Name', { exact: true }).fill('browser test script');
     await page.getByLabel('Read-only').check();
     await page.getByRole('button', { name: 'Create token' }).click();
