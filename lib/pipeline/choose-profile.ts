@@ -1,0 +1,57 @@
+// Which instrument profile reads a file. The app recognises a layout by its header
+// (BRIEF §3: "a header fingerprint recognises it on later uploads"); the command line
+// takes profiles from --profile. Order:
+//   1. a given profile whose fingerprint equals the file's;
+//   2. a given profile with the same delimiter and header names (the reader's own test
+//      of whether a file has a profile's layout, lib/import/read-tests.ts sameHeader);
+//   3. the only given profile, when exactly one was given: the caller said it reads these
+//      files, and if it does not the reader says so (header-mismatch) with the place;
+//   4. the layout detection's suggested profile.
+
+import type { LayoutDetection } from '@/lib/import/detect-layout';
+import { normaliseWord } from '@/lib/import/header-vocabulary';
+import type { InstrumentProfile } from '@/lib/import/instrument-profile';
+import { makeProblem, type PipelineProblem, type ProblemPlace } from './problems';
+
+export type ProfileChoice =
+  | { ok: true; profile: InstrumentProfile; source: 'given' | 'detected' }
+  | { ok: false; problems: PipelineProblem[] };
+
+function headerWords(header: readonly string[]): string[] {
+  const out = header.map(normaliseWord);
+  while (out.length && out[out.length - 1] === '') out.pop();
+  return out;
+}
+
+function sameLayout(p: InstrumentProfile, d: LayoutDetection): boolean {
+  if (p.delimiter !== d.delimiter) return false;
+  const a = headerWords(p.header);
+  const b = headerWords(d.header);
+  return a.length > 0 && a.length === b.length && a.every((w, i) => w === b[i]);
+}
+
+export function chooseProfile(detection: LayoutDetection, given: readonly InstrumentProfile[], place: ProblemPlace): ProfileChoice {
+  if (detection.ok) {
+    const byPrint = given.find((p) => p.fingerprint !== undefined && p.fingerprint === detection.fingerprint);
+    if (byPrint) return { ok: true, profile: byPrint, source: 'given' };
+    const byHeader = given.find((p) => sameLayout(p, detection));
+    if (byHeader) return { ok: true, profile: byHeader, source: 'given' };
+  }
+  if (given.length === 1) return { ok: true, profile: given[0], source: 'given' };
+  if (detection.suggestedProfile) return { ok: true, profile: detection.suggestedProfile, source: 'detected' };
+  const refusals = detection.problems.filter((p) => p.severity === 'error');
+  if (refusals.length) return { ok: false, problems: detection.problems };
+  const m = detection.suggestedMapping;
+  const missing = [!m?.time && 'a time', !m?.level && 'a level', !m?.tag && 'a tag'].filter(Boolean).join(', ');
+  return {
+    ok: false,
+    problems: [
+      ...detection.problems,
+      makeProblem(place, 'layout-unknown', 'error', `the layout is not recognised: no column or preamble line was found for ${missing || 'the required fields'}`, {
+        expected: given.length
+          ? 'a file of the layout of one of the given instrument profiles'
+          : 'time, level and tag columns; or map the layout in the app and pass its exported instrument profile with --profile',
+      }),
+    ],
+  };
+}
