@@ -43,6 +43,12 @@ function typeWords(type: TrapType | null): string {
   return type ? TRAP_TYPE_WORDS[type] : 'trap of unknown type';
 }
 
+/** "a disc trap", "an inverted bucket trap": the article the reasons' words need. */
+function aTypeWords(type: TrapType | null): string {
+  const w = typeWords(type);
+  return `${/^[aeiou]/i.test(w) ? 'an' : 'a'} ${w}`;
+}
+
 function verdict(
   code: VerdictCode,
   confidence: Confidence,
@@ -108,7 +114,7 @@ export function suggestVerdict(facts: VerdictFacts, params: AnalysisParams): Sug
       `no closed interval in ${sec(duration)}`,
       `level in the live-steam band (≥ ${db(bands.liveSteamMinDb)}) ${pct(shares.liveSteam)} of the time`,
     ];
-    if (trapType && isCyclingType(trapType)) reasons.push(`a ${typeWords(trapType)} should close between discharges`);
+    if (trapType && isCyclingType(trapType)) reasons.push(`${aTypeWords(trapType)} should close between discharges`);
     return verdict('blowing', longEnough && shares.liveSteam >= 0.95 ? 'high' : 'medium', 4, reasons, 'blow_through');
   }
 
@@ -117,7 +123,7 @@ export function suggestVerdict(facts: VerdictFacts, params: AnalysisParams): Sug
     const designK = t.allowanceK - params.temperature.surfaceLossAllowanceK;
     const allowanceWords =
       designK > 0
-        ? `${kelvin(t.allowanceK)} allowed for a ${typeWords(trapType)} (${kelvin(params.temperature.surfaceLossAllowanceK)} surface loss + ${kelvin(designK)} by design)`
+        ? `${kelvin(t.allowanceK)} allowed for ${aTypeWords(trapType)} (${kelvin(params.temperature.surfaceLossAllowanceK)} surface loss + ${kelvin(designK)} by design)`
         : `${kelvin(t.allowanceK)} allowed for surface loss`;
     // Temperature alone is the least reliable method (NAVFAC MO-209 §2.3.3): high confidence only with a wide margin.
     return verdict('backing_up', t.subcoolingK! > t.allowanceK + 20 ? 'high' : 'medium', 5, [
@@ -160,7 +166,7 @@ export function suggestVerdict(facts: VerdictFacts, params: AnalysisParams): Sug
     const reasons = [
       cycleWords,
       `closed at ${db(cycles.meanClosedDb!)} on average, in the quiet band`,
-      `a ${typeWords(trapType)} cycles: open, then shut tight`,
+      `${aTypeWords(trapType)} cycles: open, then shut tight`,
     ];
     return verdict('working', enoughCycles && t.cold === false ? 'high' : 'medium', 6, reasons);
   }
@@ -178,20 +184,20 @@ export function suggestVerdict(facts: VerdictFacts, params: AnalysisParams): Sug
     if (trapType && isThermostatic(trapType) && shares.condensate >= shares.liveSteam) {
       return verdict('working', 'medium', 7, [
         `steady discharge in the condensate band ${pct(shares.condensate)} of the time (live steam ${pct(shares.liveSteam)})`,
-        `a ${typeWords(trapType)} may discharge steadily at a steady load`,
+        `${aTypeWords(trapType)} may discharge steadily at a steady load`,
       ]);
     }
     if (trapType === 'thermodynamic_disc' || trapType === 'inverted_bucket') {
       if (duration < p.minContinuousTestS) {
         return verdict('inconclusive', 'low', 7, [
-          `no closed interval in ${sec(duration)}, shorter than the ${sec(p.minContinuousTestS)} needed to see a ${typeWords(trapType)} cycle`,
+          `no closed interval in ${sec(duration)}, shorter than the ${sec(p.minContinuousTestS)} needed to see ${aTypeWords(trapType)} cycle`,
           're-test for longer',
         ]);
       }
       return verdict('leaking', 'medium', 7, [
         `no closed interval in ${sec(duration)}`,
         `level above the quiet band ${pct(1 - shares.quiet)} of the time, live steam ${pct(shares.liveSteam)}`,
-        `a ${typeWords(trapType)} cycles: continuous flow means steam is passing`,
+        `${aTypeWords(trapType)} cycles: continuous flow means steam is passing`,
       ], 'leaking');
     }
   }
