@@ -2,11 +2,16 @@
 import { ApiToken } from './ApiToken';
 import { Area } from './Area';
 import { AuditEvent } from './AuditEvent';
+import { InstrumentProfile } from './InstrumentProfile';
 import { SignInAttempt } from './SignInAttempt';
 import { Site } from './Site';
 import { SiteMembership } from './SiteMembership';
+import { SourceFile } from './SourceFile';
 import { Survey } from './Survey';
+import { Test } from './Test';
+import { TestSeries } from './TestSeries';
 import { Trap } from './Trap';
+import { Upload } from './Upload';
 import { User } from './User';
 
 User.belongsToMany(Site, { through: SiteMembership, foreignKey: 'userId', otherKey: 'siteId', as: 'sites' });
@@ -31,4 +36,25 @@ ApiToken.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 AuditEvent.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 AuditEvent.belongsTo(Site, { foreignKey: 'siteId', as: 'site' });
 
-export { ApiToken, Area, AuditEvent, SignInAttempt, Site, SiteMembership, Survey, Trap, User };
+Site.hasMany(Upload, { foreignKey: 'siteId', as: 'uploads' });
+Upload.belongsTo(Site, { foreignKey: 'siteId', as: 'site' });
+Upload.belongsTo(Survey, { foreignKey: 'surveyId', as: 'survey' });
+Upload.belongsTo(User, { foreignKey: 'createdBy', as: 'creator' });
+Upload.hasMany(SourceFile, { foreignKey: 'uploadId', as: 'files' });
+SourceFile.belongsTo(Upload, { foreignKey: 'uploadId', as: 'upload' });
+SourceFile.belongsTo(SourceFile, { foreignKey: 'containerId', as: 'container' });
+SourceFile.belongsTo(InstrumentProfile, { foreignKey: 'profileId', as: 'profile' });
+InstrumentProfile.belongsTo(User, { foreignKey: 'createdBy', as: 'creator' });
+
+Test.belongsTo(Trap, { foreignKey: 'trapId', as: 'trap' });
+Trap.hasMany(Test, { foreignKey: 'trapId', as: 'tests' });
+Test.belongsTo(Survey, { foreignKey: 'surveyId', as: 'survey' });
+Test.belongsTo(Upload, { foreignKey: 'uploadId', as: 'upload' });
+Test.belongsTo(SourceFile, { foreignKey: 'sourceFileId', as: 'sourceFile' });
+Test.hasOne(TestSeries, { foreignKey: 'testId', as: 'series' });
+TestSeries.belongsTo(Test, { foreignKey: 'testId' });
+
+export {
+  ApiToken, Area, AuditEvent, InstrumentProfile, SignInAttempt, Site, SiteMembership, SourceFile, Survey,
+  Test, TestSeries, Trap, Upload, User,
+};

@@ -1,7 +1,10 @@
 // The API's route list: every route handler under app/api takes its spec from here, and the
 // OpenAPI document and the route tests are generated from it. A route not listed here does not exist.
 import { z } from 'zod';
-import { ROLES, SURVEY_STATUSES, TRAP_TYPES, UNIT_SYSTEMS, USER_STATUSES } from '@/lib/domain/vocabulary';
+import {
+  MATCH_STATUSES, ROLES, SOURCE_FILE_STATUSES, SURVEY_STATUSES, TEST_ROLES, TRAP_TYPES, UNIT_SYSTEMS, UPLOAD_STATUSES, USER_STATUSES,
+} from '@/lib/domain/vocabulary';
+import { InstrumentProfileSchema } from '@/lib/import/instrument-profile';
 import { apiTokenInputSchema } from '@/lib/validation/api-token';
 import { areaInputSchema } from '@/lib/validation/area';
 import { idSchema } from '@/lib/validation/common';
@@ -55,6 +58,59 @@ const registerCsvBody = z.object({
   csv: z.string().max(MAX_REGISTER_CSV, 'A register file is at most 5 MB.'),
   fileName: z.string().max(200).optional(),
 });
+
+const upload = z.object({
+  id: z.number(), siteId: z.number(), surveyId: z.number(), surveyName: z.string().nullable(), status: z.enum(UPLOAD_STATUSES),
+  createdBy: z.string().nullable(), createdAt: z.string(), startedAt: z.string().nullable(), finishedAt: z.string().nullable(),
+  progress: z.object({ filesTotal: z.number(), filesDone: z.number(), tests: z.number(), samples: z.number() }),
+  error: z.string().nullable(),
+});
+const sourceFile = z.object({
+  id: z.number(), containerId: z.number().nullable(), name: z.string(), entry: z.string().nullable(), kind: z.enum(['file', 'zip', 'entry']),
+  sha256: z.string(), size: z.number(), status: z.enum(SOURCE_FILE_STATUSES), fingerprint: z.string().nullable(),
+  profileId: z.number().nullable(), profileRevision: z.number().nullable(), testCount: z.number(), duplicateOf: z.number().nullable(),
+  hints: z.array(z.string()), rowCounts: z.record(z.string(), z.number()).nullable(),
+  problems: z.array(z.record(z.string(), z.unknown())).describe('each: code, severity, file, entry, line, column, message, expected'),
+});
+const uploadDetail = upload.extend({
+  files: z.array(sourceFile),
+  unknownLayouts: z.array(z.object({ fingerprint: z.string(), fileIds: z.array(z.number()), detection: z.record(z.string(), z.unknown()).nullable() })),
+});
+const profile = z.object({
+  id: z.number(), name: z.string(), fingerprint: z.string(), revision: z.number(), definition: z.unknown(),
+  createdBy: z.string().nullable(), updatedAt: z.string(),
+});
+const profileBody = z.object({
+  name: z.string().trim().min(1, 'Name the meter model, e.g. "Model A, firmware 3".').max(120),
+  fingerprint: z.string().regex(/^hf1:[0-9a-f]{32}$/, 'A header fingerprint as the detection gives it (hf1:…).').optional()
+    .describe("the layout's header fingerprint; omitted: computed from the definition's delimiter, header, preamble keys and units row"),
+  definition: InstrumentProfileSchema,
+});
+const testSummary = z.object({
+  id: z.number(), siteId: z.number(), surveyId: z.number(), uploadId: z.number(), sourceFileId: z.number(), trapId: z.number().nullable(),
+  tag: z.string(), role: z.enum(TEST_ROLES), linkedTrapTag: z.string().nullable(), matchStatus: z.enum(MATCH_STATUSES),
+  startedAt: z.string(), durationS: z.number(), sampleRateHz: z.number(), sampleCount: z.number(),
+  meanLevelDb: z.number().nullable(), dutyCycle: z.number().nullable(), suggestedVerdict: z.string().nullable(),
+  confidence: z.string().nullable(), lossKgPerHour: z.number().nullable(), figures: z.unknown(),
+});
+const testListQuery = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(500).default(100),
+  surveyId: idSchema.optional(),
+  uploadId: idSchema.optional(),
+  trapId: idSchema.optional(),
+  role: z.enum(TEST_ROLES).optional(),
+});
+const seriesQuery = z.object({
+  points: z.coerce.number().int().min(10).max(20_000).default(2000).describe('buckets of min/max when decimating'),
+  from: z.coerce.number().min(0).optional().describe('window start, seconds from the test start (full resolution inside a window)'),
+  to: z.coerce.number().min(0).optional().describe('window end, seconds from the test start'),
+});
+const tagDecision = z.discriminatedUnion('action', [
+  z.object({ tag: z.string().min(1).max(80), action: z.literal('map'), trapId: idSchema }),
+  z.object({ tag: z.string().min(1).max(80), action: z.literal('create'), trap: trapInputSchema.omit({ tag: true }) }),
+  z.object({ tag: z.string().min(1).max(80), action: z.literal('ignore') }),
+]);
 
 export const ROUTES = {
   me: defineRoute({
@@ -156,6 +212,64 @@ export const ROUTES = {
   revokeApiToken: defineRoute({
     method: 'DELETE', path: '/api/api-tokens/{tokenId}', permission: 'token.manage', tag: 'Account',
     summary: 'Revoke an API token at once.', params: z.object({ tokenId: idSchema }), response: apiToken,
+  }),
+  createUpload: defineRoute({
+    method: 'POST', path: '/api/surveys/{surveyId}/uploads', permission: 'upload.create', tag: 'Uploads', status: 201,
+    summary: 'Upload meter exports (CSV files and zips) into a survey as multipart/form-data, one part per file. Stored as received; processed in the background.',
+    params: z.object({ surveyId: idSchema }), response: uploadDetail,
+  }),
+  listUploads: defineRoute({
+    method: 'GET', path: '/api/sites/{siteId}/uploads', permission: 'upload.read', tag: 'Uploads',
+    summary: "A site's uploads, newest first, with progress.", params: siteParams, response: z.object({ items: z.array(upload) }),
+  }),
+  getUpload: defineRoute({
+    method: 'GET', path: '/api/uploads/{uploadId}', permission: 'upload.read', tag: 'Uploads',
+    summary: 'An upload with its files, status, progress, detected layouts, suggested mappings and every problem.',
+    params: z.object({ uploadId: idSchema }), response: uploadDetail,
+  }),
+  applyProfileToUpload: defineRoute({
+    method: 'POST', path: '/api/uploads/{uploadId}/apply-profile', permission: 'mapping.apply', tag: 'Uploads',
+    summary: "Read an upload's files with an instrument profile: those waiting for a mapping, or (reprocess) all of the profile's layout again.",
+    params: z.object({ uploadId: idSchema }),
+    body: z.object({ profileId: idSchema, reprocess: z.boolean().default(false) }), response: uploadDetail,
+  }),
+  decideUploadTag: defineRoute({
+    method: 'POST', path: '/api/uploads/{uploadId}/tags', permission: 'mapping.apply', tag: 'Uploads',
+    summary: 'For a tag the register does not know: map it to a trap, create the trap, or ignore its tests.',
+    params: z.object({ uploadId: idSchema }), body: tagDecision, response: z.object({ tag: z.string(), matchStatus: z.enum(MATCH_STATUSES), tests: z.number() }),
+  }),
+  listProfiles: defineRoute({
+    method: 'GET', path: '/api/instrument-profiles', permission: 'upload.read', tag: 'Instrument profiles',
+    summary: 'Every instrument profile (meter layouts are shared by all sites).', response: z.object({ items: z.array(profile) }),
+  }),
+  createProfile: defineRoute({
+    method: 'POST', path: '/api/instrument-profiles', permission: 'profile.write', tag: 'Instrument profiles', status: 201,
+    summary: 'Save a meter layout as an instrument profile; later uploads with its fingerprint are read without the wizard.',
+    body: profileBody, response: profile,
+  }),
+  getProfile: defineRoute({
+    method: 'GET', path: '/api/instrument-profiles/{profileId}', permission: 'upload.read', tag: 'Instrument profiles',
+    summary: 'One instrument profile. Its definition is the JSON file a team shares between installations.',
+    params: z.object({ profileId: idSchema }), response: profile,
+  }),
+  updateProfile: defineRoute({
+    method: 'PATCH', path: '/api/instrument-profiles/{profileId}', permission: 'profile.write', tag: 'Instrument profiles',
+    summary: 'Edit a profile. Past imports keep what they read; re-processing an upload is an explicit action.',
+    params: z.object({ profileId: idSchema }), body: profileBody.partial(), response: profile,
+  }),
+  listTests: defineRoute({
+    method: 'GET', path: '/api/sites/{siteId}/tests', permission: 'survey.read', tag: 'Tests',
+    summary: "A site's tests with their figures, filtered by survey, upload or trap.", params: siteParams, query: testListQuery,
+    response: z.object({ items: z.array(testSummary), total: z.number(), page: z.number(), pageSize: z.number() }),
+  }),
+  getTestSeries: defineRoute({
+    method: 'GET', path: '/api/tests/{testId}/series', permission: 'survey.read', tag: 'Tests',
+    summary: "A test's readings: min/max per bucket for the whole test, or every reading inside a window.",
+    params: z.object({ testId: idSchema }), query: seriesQuery,
+    response: z.object({
+      testId: z.number(), startedAt: z.string(), sampleCount: z.number(), decimated: z.boolean(),
+      t: z.array(z.number()).describe('seconds from the start'), levelDb: z.array(z.number().nullable()), temperatureC: z.array(z.number().nullable()).nullable(),
+    }),
   }),
 } as const;
 

@@ -68,3 +68,37 @@ export const SURVEY_STATUS_LABELS: Record<SurveyStatus, string> = {
 export const UNIT_SYSTEMS = ['si', 'us'] as const;
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 export const UNIT_SYSTEM_LABELS: Record<UnitSystem, string> = { si: 'SI (kg, °C, bar)', us: 'US customary (lb, °F, psi)' };
+
+// Uploads and their files (BRIEF §3).
+export const UPLOAD_STATUSES = ['received', 'queued', 'processing', 'waiting_for_mapping', 'done', 'failed'] as const;
+export type UploadStatus = (typeof UPLOAD_STATUSES)[number];
+export const UPLOAD_STATUS_LABELS: Record<UploadStatus, string> = {
+  received: 'Received',
+  queued: 'Queued',
+  processing: 'Processing',
+  waiting_for_mapping: 'Waiting for a column mapping',
+  done: 'Done',
+  failed: 'Failed',
+};
+
+export const SOURCE_FILE_KINDS = ['file', 'zip', 'entry'] as const;
+export type SourceFileKind = (typeof SOURCE_FILE_KINDS)[number];
+
+export const SOURCE_FILE_STATUSES = ['pending', 'needs_mapping', 'processed', 'failed', 'duplicate', 'skipped', 'unpacked'] as const;
+export type SourceFileStatus = (typeof SOURCE_FILE_STATUSES)[number];
+export const SOURCE_FILE_STATUS_LABELS: Record<SourceFileStatus, string> = {
+  pending: 'Waiting',
+  needs_mapping: 'Needs a column mapping',
+  processed: 'Imported',
+  failed: 'Not imported',
+  duplicate: 'Already uploaded',
+  skipped: 'Skipped',
+  unpacked: 'Unpacked',
+};
+
+export const TEST_ROLES = ['trap', 'reference'] as const;
+export type TestRole = (typeof TEST_ROLES)[number];
+
+/** Whether a test's tag found its trap in the register. */
+export const MATCH_STATUSES = ['matched', 'unmatched', 'ignored'] as const;
+export type MatchStatus = (typeof MATCH_STATUSES)[number];

@@ -5,8 +5,11 @@ import { ROUTES, type RouteName } from '@/lib/api/routes';
 import type { RouteSpec } from '@/lib/api/spec';
 import { roleMay } from '@/lib/auth/permissions';
 import { ROLES, type Role } from '@/lib/domain/vocabulary';
-import { demoSites, newUser, signInAdmin, type SiteIds } from '../support/fixtures';
+import { demoSites, MODEL_A, newUser, signInAdmin, type SiteIds } from '../support/fixtures';
 import { Client, unique } from '../support/http';
+import { fixtureFile, METERS, modelAFileFor, multipart, settled, upload } from '../support/uploads';
+import fs from 'node:fs';
+import path from 'node:path';
 
 type Ctx = { admin: Client; analystId: number };
 type Call = { params: Record<string, number>; body?: unknown };
@@ -14,6 +17,10 @@ type Sample = (ids: SiteIds, ctx: Ctx) => Promise<Call> | Call;
 
 const code = () => `T${Math.random().toString(36).slice(2, 10).toUpperCase()}`.slice(0, 12);
 const csv = () => `tag,trap_type,pressure_barg\n${unique('RG')},thermodynamic_disc,8\n`;
+
+const modelADefinition = () => JSON.parse(fs.readFileSync(path.join(METERS, MODEL_A.file), 'utf8'));
+const profileIdOf = async (admin: Client) =>
+  (await admin.get('/api/instrument-profiles')).body.items.find((p: { name: string }) => p.name === MODEL_A.name).id as number;
 
 const SAMPLES: Record<RouteName, Sample> = {
   me: () => ({ params: {} }),
@@ -40,6 +47,24 @@ const SAMPLES: Record<RouteName, Sample> = {
   },
   listApiTokens: () => ({ params: {} }),
   createApiToken: (_s, { analystId }) => ({ params: {}, body: { name: unique('script'), userId: analystId } }),
+  createUpload: (s) => ({ params: { surveyId: s.surveyId }, body: multipart([fixtureFile('model-a/A_FV-EVP-031_20250408T091403.csv')]) }),
+  listUploads: (s) => ({ params: { siteId: s.siteId } }),
+  getUpload: (s) => ({ params: { uploadId: s.uploadId } }),
+  applyProfileToUpload: async (s, { admin }) => ({ params: { uploadId: s.uploadId }, body: { profileId: await profileIdOf(admin), reprocess: true } }),
+  decideUploadTag: async (s, { admin }) => {
+    // A fresh tag the register does not know, so there is always one to decide.
+    const tag = unique('NEW').toUpperCase();
+    const sent = await upload(admin, s.surveyId, [modelAFileFor(tag)]);
+    await settled(admin, sent.body.id);
+    return { params: { uploadId: sent.body.id }, body: { tag, action: 'ignore' } };
+  },
+  listProfiles: () => ({ params: {} }),
+  createProfile: () => ({ params: {}, body: { name: unique('Profile'), definition: modelADefinition() } }),
+  getProfile: async (_s, { admin }) => ({ params: { profileId: await profileIdOf(admin) } }),
+  updateProfile: async (_s, { admin }) => ({ params: { profileId: await profileIdOf(admin) }, body: { definition: { ...modelADefinition(), levelOffsetDb: 0 } } }),
+  listTests: (s) => ({ params: { siteId: s.siteId } }),
+  // Looked up at call time: re-processing an upload (applyProfileToUpload above) stores its tests anew.
+  getTestSeries: async (s, { admin }) => ({ params: { testId: (await admin.get(`/api/sites/${s.siteId}/tests?pageSize=1`)).body.items[0].id } }),
   revokeApiToken: async (_s, { admin, analystId }) => {
     const token = await admin.post('/api/api-tokens', { name: unique('to-revoke'), userId: analystId });
     return { params: { tokenId: token.body.id } };
@@ -54,7 +79,7 @@ function call(client: Client, spec: RouteSpec, c: Call) {
   return client.request(spec.method, url(spec, c.params), c.body);
 }
 
-const hasSite = (spec: RouteSpec) => /\{(siteId|areaId|trapId|surveyId)\}/.test(spec.path);
+const hasSite = (spec: RouteSpec) => /\{(siteId|areaId|trapId|surveyId|uploadId|testId)\}/.test(spec.path);
 
 describe('API authorisation, route by route', () => {
   let ctx: Ctx;

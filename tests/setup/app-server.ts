@@ -61,6 +61,10 @@ export default async function setup(project: TestProject) {
     NEXTAUTH_SECRET: 'test-secret-for-this-run-only',
     NEXT_TELEMETRY_DISABLED: '1',
     NODE_ENV: 'production',
+    // Small limits, so the tests can reach them without sending gigabytes.
+    PLUMEWARD_MAX_FILE_MB: '8',
+    PLUMEWARD_MAX_FILES: '60',
+    PLUMEWARD_MAX_UPLOAD_MB: '40',
   };
   runDb('migrate', env);
   runDb('seed', env);

@@ -1,8 +1,11 @@
 // Records the app tests build on, created through the API as an admin would.
 import type { Role } from '@/lib/domain/vocabulary';
 import { Client, DEMO, signedIn, unique } from './http';
+import { ensureProfile, modelAFileFor, settled, upload } from './uploads';
 
-export type SiteIds = { siteId: number; areaId: number; trapId: number; surveyId: number };
+export type SiteIds = { siteId: number; areaId: number; trapId: number; surveyId: number; uploadId: number; testId: number };
+
+export const MODEL_A = { file: 'model-a/model-a.profile.json', name: 'Model A (tests)' };
 
 /** The demo's two sites by code, with one area, trap and survey each (FV = own, SM = other). */
 export async function demoSites(admin: Client): Promise<{ own: SiteIds; other: SiteIds }> {
@@ -11,9 +14,20 @@ export async function demoSites(admin: Client): Promise<{ own: SiteIds; other: S
     const siteId = sites.find((s) => s.code === code)!.id;
     const areaId = (await admin.get(`/api/sites/${siteId}/areas`)).body.items[0].id;
     const trapId = (await admin.get(`/api/sites/${siteId}/traps?pageSize=1`)).body.items[0].id;
-    const surveyId = (await admin.get(`/api/sites/${siteId}/surveys`)).body.items[0].id;
-    return { siteId, areaId, trapId, surveyId };
+    const surveys = (await admin.get(`/api/sites/${siteId}/surveys`)).body.items as { id: number; status: string }[];
+    const surveyId = surveys.find((s) => s.status === 'in_progress')!.id;
+    // One imported test per site, of a tag the register knows (imported once per run: the
+    // same bytes again would only be recognised as a duplicate).
+    let test = (await admin.get(`/api/sites/${siteId}/tests?trapId=${trapId}`)).body.items[0];
+    if (!test) {
+      const trapTag = (await admin.get(`/api/traps/${trapId}`)).body.tag;
+      const sent = await upload(admin, surveyId, [modelAFileFor(trapTag)]);
+      const done = await settled(admin, sent.body.id);
+      test = (await admin.get(`/api/sites/${siteId}/tests?uploadId=${done.id}`)).body.items[0];
+    }
+    return { siteId, areaId, trapId, surveyId, uploadId: test.uploadId, testId: test.id };
   };
+  await ensureProfile(admin, MODEL_A.file, MODEL_A.name);
   return { own: await ids('FV'), other: await ids('SM') };
 }
 

@@ -27,7 +27,7 @@ export class Client {
     if (this.cookies.size) h.cookie = [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
     if (this.bearer) h.authorization = `Bearer ${this.bearer}`;
     let payload: BodyInit | undefined;
-    if (body instanceof URLSearchParams) payload = body;
+    if (body instanceof URLSearchParams || body instanceof FormData) payload = body;
     else if (body !== undefined) {
       payload = JSON.stringify(body);
       h['content-type'] = 'application/json';

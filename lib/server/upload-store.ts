@@ -1,0 +1,39 @@
+import 'server-only';
+import fs from 'node:fs';
+import path from 'node:path';
+import { databasePath } from '@/lib/db';
+
+// Original bytes, kept as received, named by their SHA-256: the same file twice is stored once,
+// and a name from the user's computer never becomes a path on ours.
+
+export function storeRoot(): string {
+  return process.env.PLUMEWARD_STORE ?? path.join(path.dirname(databasePath()), 'uploads');
+}
+
+/** Where incoming parts stream to before they are hashed and adopted (same disk, so moving is a rename). */
+export function incomingDir(): string {
+  const dir = path.join(storeRoot(), 'incoming');
+  fs.mkdirSync(dir, { recursive: true });
+  return dir;
+}
+
+export function storedPath(sha256: string): string {
+  if (!/^[0-9a-f]{64}$/.test(sha256)) throw new Error(`not a SHA-256: ${sha256}`);
+  return path.join(storeRoot(), sha256.slice(0, 2), sha256);
+}
+
+/** Moves a received temporary file into the store under its hash; a copy already stored wins. */
+export async function adopt(tempPath: string, sha256: string): Promise<void> {
+  const target = storedPath(sha256);
+  await fs.promises.mkdir(path.dirname(target), { recursive: true });
+  if (fs.existsSync(target)) {
+    await fs.promises.rm(tempPath, { force: true });
+    return;
+  }
+  await fs.promises.rename(tempPath, target);
+  await fs.promises.chmod(target, 0o440);
+}
+
+export function readStored(sha256: string): Promise<Buffer> {
+  return fs.promises.readFile(storedPath(sha256));
+}
