@@ -15,6 +15,7 @@ export function AppHeader({ actor }: { actor: Actor }) {
         </Link>
         <nav className="flex items-center gap-4 text-sm text-ink-soft" aria-label="Main">
           <Link href="/" className="hover:text-ink">Sites</Link>
+          {may(actor, 'upload.read') && <Link href="/instrument-profiles" className="hover:text-ink">Instrument profiles</Link>}
           {may(actor, 'user.manage') && <Link href="/settings" className="hover:text-ink">Settings</Link>}
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm">

@@ -74,6 +74,10 @@ const sourceFile = z.object({
 });
 const uploadDetail = upload.extend({
   files: z.array(sourceFile),
+  unmatchedTags: z.array(z.object({ tag: z.string(), tests: z.number(), roles: z.array(z.enum(TEST_ROLES)) }))
+    .describe('tags of imported tests the register does not know (held back until mapped, created or ignored)'),
+  mappingDraft: z.record(z.string(), z.object({ step: z.string(), profile: z.unknown(), updatedBy: z.string(), updatedAt: z.string() })).nullable()
+    .describe("the mapping wizard's saved state, per layout fingerprint"),
   unknownLayouts: z.array(z.object({ fingerprint: z.string(), fileIds: z.array(z.number()), detection: z.record(z.string(), z.unknown()).nullable() })),
 });
 const profile = z.object({
@@ -232,6 +236,28 @@ export const ROUTES = {
     summary: "Read an upload's files with an instrument profile: those waiting for a mapping, or (reprocess) all of the profile's layout again.",
     params: z.object({ uploadId: idSchema }),
     body: z.object({ profileId: idSchema, reprocess: z.boolean().default(false) }), response: uploadDetail,
+  }),
+  previewMapping: defineRoute({
+    method: 'POST', path: '/api/uploads/{uploadId}/mapping-preview', permission: 'mapping.apply', tag: 'Uploads',
+    summary: "Read one of the upload's files with a draft profile, without storing anything: its first tests (decimated) and problems.",
+    params: z.object({ uploadId: idSchema }),
+    body: z.object({ fileId: idSchema, profile: InstrumentProfileSchema }),
+    response: z.object({
+      refused: z.boolean(), testCount: z.number(), rowCounts: z.record(z.string(), z.number()).nullable(),
+      problems: z.array(z.record(z.string(), z.unknown())),
+      tests: z.array(z.object({
+        tag: z.string(), role: z.enum(TEST_ROLES), linkedTrapTag: z.string().nullable(), startedAt: z.string(), sampleCount: z.number(),
+        sampleRateHz: z.number(), durationS: z.number(), meanLevelDb: z.number().nullable(),
+        series: z.object({ t: z.array(z.number()), levelDb: z.array(z.number().nullable()), temperatureC: z.array(z.number().nullable()).nullable() }),
+      })),
+    }),
+  }),
+  saveMappingDraft: defineRoute({
+    method: 'PUT', path: '/api/uploads/{uploadId}/mapping-draft', permission: 'mapping.apply', tag: 'Uploads',
+    summary: "Save the mapping wizard's state for one layout, so a refresh or a colleague's link resumes it.",
+    params: z.object({ uploadId: idSchema }),
+    body: z.object({ fingerprint: z.string().min(1).max(40), step: z.enum(['format', 'columns', 'tags', 'save']), profile: z.record(z.string(), z.unknown()) }),
+    response: z.object({ saved: z.literal(true) }),
   }),
   decideUploadTag: defineRoute({
     method: 'POST', path: '/api/uploads/{uploadId}/tags', permission: 'mapping.apply', tag: 'Uploads',

@@ -58,7 +58,7 @@ export async function processUpload(uploadId: number) {
   await finish(upload);
 }
 
-async function entryBytes(entry: SourceFile): Promise<Uint8Array> {
+export async function entryBytes(entry: SourceFile): Promise<Uint8Array> {
   const zip = (await SourceFile.findByPk(entry.containerId!))!;
   const contents = readZip(await readStored(zip.sha256), uploadLimits().zip, zip.name);
   const found = contents.entries.find((e) => e.name === entry.entry);

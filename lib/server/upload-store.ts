@@ -37,3 +37,13 @@ export async function adopt(tempPath: string, sha256: string): Promise<void> {
 export function readStored(sha256: string): Promise<Buffer> {
   return fs.promises.readFile(storedPath(sha256));
 }
+
+/** Stores bytes made on the server (demo files, tests) the same way received files are stored. */
+export async function storeBytes(bytes: Uint8Array): Promise<string> {
+  const { createHash, randomUUID } = await import('node:crypto');
+  const sha256 = createHash('sha256').update(bytes).digest('hex');
+  const temp = path.join(incomingDir(), randomUUID());
+  await fs.promises.writeFile(temp, bytes);
+  await adopt(temp, sha256);
+  return sha256;
+}

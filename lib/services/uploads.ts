@@ -7,7 +7,7 @@ import type { SourceFileStatus } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { ReceivedFile } from '@/lib/server/receive-upload';
 import { storedPath } from '@/lib/server/upload-store';
-import { SourceFile, Survey, Upload, User } from '@/models';
+import { SourceFile, Survey, Test, Upload, User } from '@/models';
 import { recordAudit } from './audit';
 
 const ZIP_MAGIC = Buffer.from([0x50, 0x4b, 0x03, 0x04]);
@@ -112,9 +112,36 @@ export async function getUpload(uploadId: number) {
     files: files.map(fileDto),
     /** Layouts no profile knows yet, one per fingerprint, with what detection suggests. */
     unknownLayouts: unknownLayouts(files),
+    unmatchedTags: await unmatchedTags(uploadId),
+    mappingDraft: (upload.mappingDraft ?? null) as Record<string, { step: string; profile: unknown; updatedBy: string; updatedAt: string }> | null,
   };
 }
 export type UploadDetail = Awaited<ReturnType<typeof getUpload>>;
+
+async function unmatchedTags(uploadId: number) {
+  const tests = await Test.findAll({ where: { uploadId, matchStatus: 'unmatched' }, attributes: ['tag', 'role', 'linkedTrapTag'] });
+  const byTag = new Map<string, { tag: string; tests: number; roles: Set<'trap' | 'reference'> }>();
+  for (const t of tests) {
+    const tag = t.role === 'trap' ? t.tag : t.linkedTrapTag ?? t.tag;
+    const entry = byTag.get(tag.toUpperCase()) ?? { tag, tests: 0, roles: new Set() };
+    entry.tests++;
+    entry.roles.add(t.role);
+    byTag.set(tag.toUpperCase(), entry);
+  }
+  return [...byTag.values()].map((e) => ({ tag: e.tag, tests: e.tests, roles: [...e.roles] })).sort((a, b) => a.tag.localeCompare(b.tag));
+}
+
+/** Saves the wizard's state for one layout (keyed by fingerprint) on the upload. */
+export async function saveMappingDraft(actor: Actor, uploadId: number, draft: { fingerprint: string; step: string; profile: Record<string, unknown> }) {
+  await sequelize.transaction(async (transaction) => {
+    const upload = await Upload.findByPk(uploadId, { transaction });
+    if (!upload) throw notFound('upload');
+    const drafts = { ...(upload.mappingDraft ?? {}) };
+    drafts[draft.fingerprint] = { step: draft.step, profile: draft.profile, updatedBy: actor.name, updatedAt: new Date().toISOString() };
+    await upload.update({ mappingDraft: drafts }, { transaction });
+  });
+  return { saved: true as const };
+}
 
 function unknownLayouts(files: SourceFile[]) {
   const byFingerprint = new Map<string, { fingerprint: string; fileIds: number[]; detection: Record<string, unknown> | null }>();

@@ -58,6 +58,11 @@ const SAMPLES: Record<RouteName, Sample> = {
     await settled(admin, sent.body.id);
     return { params: { uploadId: sent.body.id }, body: { tag, action: 'ignore' } };
   },
+  previewMapping: async (s, { admin }) => {
+    const detail = (await admin.get(`/api/uploads/${s.uploadId}`)).body;
+    return { params: { uploadId: s.uploadId }, body: { fileId: detail.files[0].id, profile: modelADefinition() } };
+  },
+  saveMappingDraft: (s) => ({ params: { uploadId: s.uploadId }, body: { fingerprint: 'hf1:draft', step: 'columns', profile: { name: 'draft' } } }),
   listProfiles: () => ({ params: {} }),
   createProfile: () => ({ params: {}, body: { name: unique('Profile'), definition: modelADefinition() } }),
   getProfile: async (_s, { admin }) => ({ params: { profileId: await profileIdOf(admin) } }),

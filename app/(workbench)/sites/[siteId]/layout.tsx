@@ -11,6 +11,7 @@ export default async function SiteLayout({ children, params }: { children: React
     { href: `${base}/traps`, label: 'Trap register' },
     { href: `${base}/areas`, label: 'Areas' },
     { href: `${base}/surveys`, label: 'Surveys' },
+    ...(may(actor, 'upload.read') ? [{ href: `${base}/uploads`, label: 'Uploads' }] : []),
     ...(may(actor, 'register.import') ? [{ href: `${base}/register-import`, label: 'Import register' }] : []),
   ];
   return (
