@@ -11,6 +11,7 @@ import { Survey } from './Survey';
 import { Test } from './Test';
 import { TestSeries } from './TestSeries';
 import { Trap } from './Trap';
+import { TrapVerdict } from './TrapVerdict';
 import { Upload } from './Upload';
 import { User } from './User';
 
@@ -54,7 +55,11 @@ Test.belongsTo(SourceFile, { foreignKey: 'sourceFileId', as: 'sourceFile' });
 Test.hasOne(TestSeries, { foreignKey: 'testId', as: 'series' });
 TestSeries.belongsTo(Test, { foreignKey: 'testId' });
 
+TrapVerdict.belongsTo(Trap, { foreignKey: 'trapId', as: 'trap' });
+TrapVerdict.belongsTo(User, { foreignKey: 'decidedBy', as: 'decider' });
+Trap.hasMany(TrapVerdict, { foreignKey: 'trapId', as: 'verdicts' });
+
 export {
   ApiToken, Area, AuditEvent, InstrumentProfile, SignInAttempt, Site, SiteMembership, SourceFile, Survey,
-  Test, TestSeries, Trap, Upload, User,
+  Test, TestSeries, Trap, TrapVerdict, Upload, User,
 };

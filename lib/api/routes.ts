@@ -5,6 +5,7 @@ import {
   MATCH_STATUSES, ROLES, SOURCE_FILE_STATUSES, SURVEY_STATUSES, TEST_ROLES, TRAP_TYPES, UNIT_SYSTEMS, UPLOAD_STATUSES, USER_STATUSES,
 } from '@/lib/domain/vocabulary';
 import { InstrumentProfileSchema } from '@/lib/import/instrument-profile';
+import { VERDICT_CODES } from '@/lib/analysis/verdict-codes';
 import { apiTokenInputSchema } from '@/lib/validation/api-token';
 import { areaInputSchema } from '@/lib/validation/area';
 import { idSchema } from '@/lib/validation/common';
@@ -114,6 +115,30 @@ const tagDecision = z.discriminatedUnion('action', [
   z.object({ tag: z.string().min(1).max(80), action: z.literal('map'), trapId: idSchema }),
   z.object({ tag: z.string().min(1).max(80), action: z.literal('create'), trap: trapInputSchema.omit({ tag: true }) }),
   z.object({ tag: z.string().min(1).max(80), action: z.literal('ignore') }),
+]);
+
+const reviewState = z.enum(['unreviewed', 'confirmed', 'overridden', 'retest_pending']);
+const reviewItem = z.object({
+  trapId: z.number(), tag: z.string(), areaId: z.number().nullable(), areaName: z.string().nullable(), trapType: z.enum(TRAP_TYPES),
+  pressureBarg: z.number(), criticality: z.string(), latestTestId: z.number(), testCount: z.number(), hasReference: z.boolean(),
+  suggested: z.string().nullable(), confidence: z.string().nullable(), lossKgPerHour: z.number().nullable(),
+  meanLevelDb: z.number().nullable(), dutyCycle: z.number().nullable(), state: reviewState, verdict: z.string().nullable(),
+  reason: z.string().nullable(), decidedBy: z.string().nullable(), decidedAt: z.string().nullable(),
+});
+const reviewQuery = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(5000).default(500),
+  uploadId: idSchema.optional(),
+  areaId: idSchema.optional(),
+  trapType: z.enum(TRAP_TYPES).optional(),
+  verdict: z.enum(VERDICT_CODES).optional(),
+  reviewed: z.enum(['yes', 'no', 'retest']).optional(),
+});
+const reasonText = z.string().trim().max(2000);
+const decisionBody = z.discriminatedUnion('action', [
+  z.object({ trapId: idSchema, action: z.literal('confirm'), testId: idSchema, reason: reasonText.optional() }),
+  z.object({ trapId: idSchema, action: z.literal('override'), testId: idSchema, verdict: z.enum(VERDICT_CODES), reason: reasonText.min(3, 'Say why you override the suggestion.') }),
+  z.object({ trapId: idSchema, action: z.literal('retest'), reason: reasonText.optional() }),
 ]);
 
 export const ROUTES = {
@@ -296,6 +321,31 @@ export const ROUTES = {
       testId: z.number(), startedAt: z.string(), sampleCount: z.number(), decimated: z.boolean(),
       t: z.array(z.number()).describe('seconds from the start'), levelDb: z.array(z.number().nullable()), temperatureC: z.array(z.number().nullable()).nullable(),
     }),
+  }),
+  reviewQueue: defineRoute({
+    method: 'GET', path: '/api/surveys/{surveyId}/review-queue', permission: 'survey.read', tag: 'Review',
+    summary: 'Every trap tested in a survey, worst first (suggested severity, then estimated loss), with its review state and progress counts.',
+    params: z.object({ surveyId: idSchema }), query: reviewQuery,
+    response: z.object({
+      items: z.array(reviewItem), total: z.number(), page: z.number(), pageSize: z.number(),
+      counts: z.object({ traps: z.number(), reviewed: z.number(), retestPending: z.number(), unreviewed: z.number() }),
+    }),
+  }),
+  decideVerdict: defineRoute({
+    method: 'POST', path: '/api/surveys/{surveyId}/verdicts', permission: 'verdict.confirm', tag: 'Review',
+    summary: 'Confirm the suggested verdict of a trap, override it with a reason, or ask for a re-test. A decided verdict changes only with a reason.',
+    params: z.object({ surveyId: idSchema }), body: decisionBody,
+    response: z.object({ trapId: z.number(), surveyId: z.number(), state: reviewState.or(z.literal('retest')), verdict: z.string().nullable(), reason: z.string().nullable() }),
+  }),
+  getTest: defineRoute({
+    method: 'GET', path: '/api/tests/{testId}', permission: 'survey.read', tag: 'Tests',
+    summary: "One test with its figures, the trap, the reference test used, the trap's decision in the survey and its audit trail.",
+    params: z.object({ testId: idSchema }), response: z.record(z.string(), z.unknown()),
+  }),
+  trapHistory: defineRoute({
+    method: 'GET', path: '/api/traps/{trapId}/history', permission: 'register.read', tag: 'Register',
+    summary: "A trap across its site's surveys: trap-point tests with their figures, and each survey's decision.",
+    params: z.object({ trapId: idSchema }), response: z.object({ items: z.array(z.record(z.string(), z.unknown())) }),
   }),
 } as const;
 

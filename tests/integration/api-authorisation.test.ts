@@ -70,6 +70,13 @@ const SAMPLES: Record<RouteName, Sample> = {
   listTests: (s) => ({ params: { siteId: s.siteId } }),
   // Looked up at call time: re-processing an upload (applyProfileToUpload above) stores its tests anew.
   getTestSeries: async (s, { admin }) => ({ params: { testId: (await admin.get(`/api/sites/${s.siteId}/tests?pageSize=1`)).body.items[0].id } }),
+  reviewQueue: (s) => ({ params: { surveyId: s.surveyId } }),
+  decideVerdict: async (s, { admin }) => {
+    const [test] = (await admin.get(`/api/sites/${s.siteId}/tests?surveyId=${s.surveyId}&role=trap&pageSize=1`)).body.items;
+    return { params: { surveyId: test.surveyId }, body: { trapId: test.trapId, action: 'override', testId: test.id, verdict: 'leaking', reason: unique('heard a whistle') } };
+  },
+  getTest: async (s, { admin }) => ({ params: { testId: (await admin.get(`/api/sites/${s.siteId}/tests?pageSize=1`)).body.items[0].id } }),
+  trapHistory: (s) => ({ params: { trapId: s.trapId } }),
   revokeApiToken: async (_s, { admin, analystId }) => {
     const token = await admin.post('/api/api-tokens', { name: unique('to-revoke'), userId: analystId });
     return { params: { tokenId: token.body.id } };
