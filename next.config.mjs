@@ -7,6 +7,8 @@ const securityHeaders = [
 ];
 
 const nextConfig = {
+  // NEXT_DIST_DIR lets two builds live side by side (say, a developer's and a test run's).
+  distDir: process.env.NEXT_DIST_DIR || '.next',
   // Sequelize finds its SQLite driver at run time; bundled, it cannot (and the build fails on pg-hstore).
   serverExternalPackages: ['sequelize', 'sqlite3'],
   poweredByHeader: false,

@@ -46,7 +46,7 @@ async function waitUntilUp(url: string, server: ChildProcess, log: () => string)
 }
 
 export default async function setup(project: TestProject) {
-  if (!fs.existsSync(path.join(root, '.next', 'BUILD_ID'))) {
+  if (!fs.existsSync(path.join(root, process.env.NEXT_DIST_DIR || '.next', 'BUILD_ID'))) {
     throw new Error('No production build: run `npm run build` first (npm test does).');
   }
   fs.mkdirSync(path.join(root, 'tmp'), { recursive: true });

@@ -1,3 +1,4 @@
+import Link from 'next/link';
 import { SurveyStatusLabel } from '@/components/SurveyStatus';
 import { SurveyForm } from '@/components/surveys/SurveyForm';
 import { may, requireSiteActor } from '@/lib/auth/page';
@@ -12,10 +13,11 @@ export default async function SurveysPage({ params }: { params: Promise<{ siteId
     <div className="space-y-4">
       <div className="panel overflow-x-auto">
         <table className="data-table">
-          <thead><tr><th>Survey</th><th>Starts</th><th>Ends</th><th>Status</th></tr></thead>
+          <thead><tr><th>Survey</th><th>Starts</th><th>Ends</th><th>Status</th><th /></tr></thead>
           <tbody>
             {surveys.map((s) => (
-              <tr key={s.id}><td className="font-medium">{s.name}</td><td>{s.startsOn}</td><td>{s.endsOn}</td><td><SurveyStatusLabel status={s.status} /></td></tr>
+              <tr key={s.id}><td className="font-medium">{s.name}</td><td>{s.startsOn}</td><td>{s.endsOn}</td><td><SurveyStatusLabel status={s.status} /></td>
+                <td className="text-right"><Link className="text-sm text-accent-700 hover:underline" href={`/sites/${siteId}/surveys/${s.id}/review`}>Review queue</Link></td></tr>
             ))}
           </tbody>
         </table>
