@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { TrapHistory } from '@/components/review/TrapHistory';
 import { SafetyCaution } from '@/components/SafetyCaution';
 import { may, requireSiteActor } from '@/lib/auth/page';
 import {
@@ -54,8 +55,8 @@ export default async function TrapPage({ params }: { params: Promise<{ siteId: s
         <SafetyCaution context="Before anyone opens, tests or repairs this trap" />
       </div>
       <section className="panel p-5">
-        <h3 className="mb-1 font-semibold">Tests and verdicts</h3>
-        <p className="text-sm text-ink-soft">No test of this trap has been imported yet. Tests appear here, survey by survey, once meter files are uploaded.</p>
+        <h3 className="mb-3 font-semibold">Surveys, tests and verdicts</h3>
+        <TrapHistory trapId={trap.id} siteId={siteId} />
       </section>
       {trail.length > 0 && (
         <section className="panel p-5">
