@@ -33,15 +33,17 @@ export function UploadDropZone({ siteId, surveys, defaultSurveyId, onUploaded }:
   const frozen = survey?.status === 'published';
   const totalBytes = picked.reduce((n, p) => n + p.file.size, 0);
 
-  function add(files: FileList | File[] | null) {
-    if (!files) return;
+  function add(list: FileList | null) {
+    if (!list) return;
+    // Copied now: the input's FileList is live and is emptied when the input is reset.
+    const files = Array.from(list);
     setError(null);
     setSent(null);
     setSending(null);
     setPicked((current) => {
       const known = new Set(current.map((p) => p.key));
       const next = [...current];
-      for (const file of Array.from(files)) {
+      for (const file of files) {
         const key = `${file.name}:${file.size}:${file.lastModified}`;
         if (!known.has(key)) next.push({ key, file });
         known.add(key);

@@ -32,7 +32,8 @@ async function siteIdOf(page: Page, code: string): Promise<number> {
 /** Puts files into the drop zone's input, sends them and opens the new upload's page. */
 async function uploadThroughPage(page: Page, siteId: number, files: Part[]) {
   await page.goto(`${baseUrl()}/sites/${siteId}/uploads`);
-  await page.getByRole('heading', { name: 'Upload meter files' }).waitFor();
+  // The picker button is enabled once the page has hydrated: only then does the input react.
+  await page.getByRole('button', { name: 'Choose files…' }).and(page.locator(':enabled')).waitFor();
   await page.getByTestId('upload-input').setInputFiles(files);
   await page.getByTestId('picked-files').waitFor();
   expect(await page.locator('[data-testid=picked-files] tbody tr').count()).toBe(files.length);

@@ -177,7 +177,8 @@ export function ColumnsStep({ detection, profile, onChange, uploadId, fileId, si
   const [preview, setPreview] = useState<Preview | null>(null);
   const [previewError, setPreviewError] = useState<{ message: string; details: FieldIssue[] } | null>(null);
   const [loading, setLoading] = useState(false);
-  const body = useMemo(() => JSON.stringify(profile), [profile]);
+  // The name is asked for on the last step; the schema wants one, so the preview lends it a placeholder.
+  const body = useMemo(() => JSON.stringify({ ...profile, name: profile.name.trim() || 'Draft mapping' }), [profile]);
 
   useEffect(() => {
     const controller = new AbortController();
