@@ -14,7 +14,7 @@ import { usePolling } from './usePolling';
 const fmt = (v: number | null, digits = 1, unit = '') => (v === null || v === undefined ? '—' : `${v.toFixed(digits)}${unit}`);
 
 /** One upload, live: polled while queued or processing, then its files, problems and tests. */
-export function UploadDetailView({ siteId, uploadId, canMap }: { siteId: number; uploadId: number; canMap: boolean }) {
+export function UploadDetailView({ siteId, uploadId, canMap, siteTimeZone }: { siteId: number; uploadId: number; canMap: boolean; siteTimeZone: string }) {
   const { data: upload, error, reload } = usePolling<UploadDetail>(`/api/uploads/${uploadId}`, (u) => BUSY_STATUSES.includes(u.status), 1000);
   const [profiles, setProfiles] = useState<ProfileDto[]>([]);
   const [tests, setTests] = useState<{ items: TestDto[]; total: number } | null>(null);
@@ -136,14 +136,14 @@ export function UploadDetailView({ siteId, uploadId, canMap }: { siteId: number;
           <div className="overflow-x-auto">
             <table className="data-table" data-testid="upload-tests">
               <thead>
-                <tr><th>Tag</th><th>Point</th><th>Start</th><th className="text-right">Duration</th><th className="text-right">Mean level</th><th className="text-right">Duty cycle</th><th>Suggested verdict</th><th>Register</th></tr>
+                <tr><th>Tag</th><th>Point</th><th>Start (site time)</th><th className="text-right">Duration</th><th className="text-right">Mean level</th><th className="text-right">Duty cycle</th><th>Suggested verdict</th><th>Register</th></tr>
               </thead>
               <tbody>
                 {tests.items.map((t) => (
                   <tr key={t.id}>
                     <td className="tag-text">{t.tag}</td>
                     <td>{t.role === 'trap' ? 'Trap' : `Reference point${t.linkedTrapTag ? ` of ${t.linkedTrapTag}` : ''}`}</td>
-                    <td className="whitespace-nowrap">{formatWhen(t.startedAt)}</td>
+                    <td className="whitespace-nowrap">{formatWhen(t.startedAt, siteTimeZone)}</td>
                     <td className="text-right">{fmt(t.durationS, 1, ' s')}</td>
                     <td className="text-right">{fmt(t.meanLevelDb, 1, ' dB')}</td>
                     <td className="text-right">{t.dutyCycle === null ? '—' : `${Math.round(t.dutyCycle * 100)} %`}</td>

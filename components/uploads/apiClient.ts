@@ -51,7 +51,8 @@ export function formatBytes(n: number): string {
   return `${(n / 1024 / 1024).toFixed(1)} MB`;
 }
 
-export function formatWhen(iso: string | null): string {
+/** A moment in the given zone (the site's, for readings), else the browser's. */
+export function formatWhen(iso: string | null, timeZone?: string): string {
   if (!iso) return '—';
-  return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+  return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', ...(timeZone ? { timeZone } : {}) });
 }

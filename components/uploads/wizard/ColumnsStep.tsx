@@ -21,6 +21,11 @@ const TIME_KINDS = [['datetime', 'Date and time of day'], ['epoch', 'Seconds or 
 const LEVEL_UNITS = [['dB', 'dB (the meter’s scale)'], ['dBuV', 'dBµV'], ['mV', 'mV RMS → dB'], ['V', 'V RMS → dB']] as const;
 const TEMP_UNITS = [['C', '°C'], ['F', '°F'], ['K', 'K']] as const;
 
+// The reader's row counts, in words.
+const ROW_COUNT_LABELS: Record<string, string> = {
+  lines: 'lines', dataRows: 'data rows', readings: 'readings', skipped: 'rows skipped', blank: 'blank lines', duplicates: 'duplicate times', missingTemperature: 'rows without temperature',
+};
+
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
 function Field({ title, children, note }: { title: string; children: React.ReactNode; note?: React.ReactNode }) {
@@ -271,7 +276,7 @@ export function ColumnsStep({ detection, profile, onChange, uploadId, fileId, si
               )}
             </>
           ) : preview && !preview.refused ? <p className="text-sm text-ink-soft">No test read yet.</p> : null}
-          {preview?.rowCounts && <p className="text-xs text-ink-soft">Rows: {Object.entries(preview.rowCounts).map(([k, v]) => `${k} ${v}`).join(' · ')}</p>}
+          {preview?.rowCounts && <p className="text-xs text-ink-soft">{Object.entries(preview.rowCounts).map(([k, v]) => `${ROW_COUNT_LABELS[k] ?? k}: ${v}`).join(' · ')}</p>}
         </section>
         {preview && preview.problems.length > 0 && (
           <section className="panel p-5">

@@ -17,13 +17,13 @@ export function PreviewChart({ series, title }: { series: Series; title: string 
     const options: uPlot.Options = {
       width: Math.max(280, el.clientWidth),
       height: 220,
-      legend: { show: true },
+      legend: { show: false },
       cursor: { drag: { x: false, y: false } },
       scales: { x: { time: false } },
       axes: [
         { label: 's from start', size: 36, stroke: '#4d5652', grid: { stroke: '#e2e3de' } },
         { label: 'Level (dB)', scale: 'dB', stroke: '#4d5652', grid: { stroke: '#e2e3de' } },
-        ...(hasTemp ? [{ label: '°C', scale: 'C', side: 1 as const, stroke: '#4d5652', grid: { show: false } }] : []),
+        ...(hasTemp ? [{ label: 'Surface (°C)', scale: 'C', side: 1 as const, size: 56, stroke: '#4d5652', grid: { show: false } }] : []),
       ],
       series: [
         { label: 'Time (s)' },
@@ -41,5 +41,14 @@ export function PreviewChart({ series, title }: { series: Series; title: string 
     };
   }, [series]);
 
-  return <div ref={box} role="img" aria-label={title} data-testid="preview-chart" className="w-full" />;
+  const hasTemp = series.temperatureC !== null && series.temperatureC.some((v) => v !== null);
+  return (
+    <figure>
+      <div ref={box} role="img" aria-label={title} data-testid="preview-chart" className="w-full" />
+      <figcaption className="mt-1 flex gap-4 text-xs text-ink-soft">
+        <span><span aria-hidden="true" className="text-accent-600">━</span> Level (dB, left)</span>
+        {hasTemp && <span><span aria-hidden="true" className="text-[#d55e00]">┅</span> Surface temperature (°C, right)</span>}
+      </figcaption>
+    </figure>
+  );
 }

@@ -6,13 +6,15 @@ import type { ProfileDto } from '@/lib/services/instrument-profiles';
 import { callApi, type FieldIssue } from '../apiClient';
 import { TextField } from './Inputs';
 
+const ORDER_WORDS = { ymd: 'year-month-day', dmy: 'day-month-year', mdy: 'month-day-year' } as const;
+
 function summary(p: InstrumentProfile, siteTimeZone: string): [string, string][] {
   const col = (i: number) => `column ${i + 1}${p.header[i] ? ` “${p.header[i]}”` : ''}`;
   const t = p.time;
   const zone = 'zone' in t ? (t.zone ?? `site’s zone (${siteTimeZone})`) : 'UTC';
   return [
     ['Format', `${p.encoding === 'auto' ? 'encoding recognised per file' : p.encoding}, delimiter ${p.delimiter === '\t' ? 'tab' : `“${p.delimiter}”`}, decimal ${p.decimalMark === ',' ? 'comma' : 'point'}${p.unitsRow ? ', units row' : ''}`],
-    ['Time', t.kind === 'datetime' ? `${col(t.column)}${t.timeColumn !== null ? ` + ${col(t.timeColumn)}` : ''}, ${t.order}, ${zone}` : t.kind === 'epoch' ? `${col(t.column)}, epoch ${t.unit}` : t.kind === 'elapsed' ? `${col(t.column)} in ${t.unit} from “${t.startKey}”, ${zone}` : `${t.column === null ? 'row order' : col(t.column)} at ${t.rateHz ? `${t.rateHz} Hz` : `“${t.rateKey}”`} from “${t.startKey}”`],
+    ['Time', t.kind === 'datetime' ? `${col(t.column)}${t.timeColumn !== null ? ` + ${col(t.timeColumn)}` : ''}, ${ORDER_WORDS[t.order]}, ${zone}` : t.kind === 'epoch' ? `${col(t.column)}, epoch ${t.unit}` : t.kind === 'elapsed' ? `${col(t.column)} in ${t.unit} from “${t.startKey}”, ${zone}` : `${t.column === null ? 'row order' : col(t.column)} at ${t.rateHz ? `${t.rateHz} Hz` : `“${t.rateKey}”`} from “${t.startKey}”`],
     ['Level', `${col(p.level.column)} in ${p.level.unit}${p.level.unit === 'dB' ? '' : `, Vref ${p.level.vrefV * 1e6} µV`}${p.levelOffsetDb ? `, offset ${p.levelOffsetDb} dB` : ''}`],
     ['Temperature', p.temperature ? `${col(p.temperature.column)} in ${p.temperature.unit === 'K' ? 'K' : `°${p.temperature.unit}`}` : 'none'],
     ['Tag', p.tag.from === 'column' ? col(p.tag.column) : p.tag.from === 'file-name' ? `file name, pattern ${p.tag.pattern}` : `preamble “${p.tag.key}”`],

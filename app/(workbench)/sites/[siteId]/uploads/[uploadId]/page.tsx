@@ -1,5 +1,6 @@
 import { UploadDetailView } from '@/components/uploads/UploadDetailView';
 import { may, requireSiteActor } from '@/lib/auth/page';
+import { getSite } from '@/lib/services/sites';
 import { uploadIdForPage } from './upload-for-page';
 
 export const metadata = { title: 'Upload' };
@@ -8,5 +9,6 @@ export default async function UploadPage({ params }: { params: Promise<{ siteId:
   const { siteId: rawSiteId, uploadId: rawUploadId } = await params;
   const { actor, siteId } = await requireSiteActor(rawSiteId, 'upload.read');
   const uploadId = await uploadIdForPage(siteId, rawUploadId);
-  return <UploadDetailView siteId={siteId} uploadId={uploadId} canMap={may(actor, 'mapping.apply')} />;
+  const site = await getSite(siteId);
+  return <UploadDetailView siteId={siteId} uploadId={uploadId} canMap={may(actor, 'mapping.apply')} siteTimeZone={site.timeZone} />;
 }
