@@ -1,6 +1,7 @@
 'use client';
 
 import Link from 'next/link';
+import { useEffect } from 'react';
 import type { UploadDto } from '@/lib/services/uploads';
 import { formatWhen, uploadPath } from './apiClient';
 import { BUSY_STATUSES, ProgressBar, UploadStatusLabel } from './StatusLabel';
@@ -8,11 +9,15 @@ import { usePolling } from './usePolling';
 
 /** This site's uploads, newest first; polled while any of them is still being read. */
 export function UploadHistory({ siteId, refreshKey }: { siteId: number; refreshKey: number }) {
-  const { data, error } = usePolling<{ items: UploadDto[] }>(
-    `/api/sites/${siteId}/uploads?r=${refreshKey}`,
+  const { data, error, reload } = usePolling<{ items: UploadDto[] }>(
+    `/api/sites/${siteId}/uploads`,
     (d) => d.items.some((u) => BUSY_STATUSES.includes(u.status)),
     1500,
   );
+  // A new upload from the drop zone: load the list again (and poll while it is read).
+  useEffect(() => {
+    if (refreshKey > 0) reload();
+  }, [refreshKey, reload]);
   return (
     <section className="panel p-5" aria-labelledby="history-heading">
       <h2 id="history-heading" className="mb-3 font-semibold">Uploads of this site</h2>

@@ -37,6 +37,7 @@ async function uploadThroughPage(page: Page, siteId: number, files: Part[]) {
   await page.getByTestId('upload-input').setInputFiles(files);
   await page.getByTestId('picked-files').waitFor();
   expect(await page.locator('[data-testid=picked-files] tbody tr').count()).toBe(files.length);
+  await screenshot(page, `uploads-picked-${files.length}`);
   await page.getByRole('button', { name: new RegExp(`^Upload ${files.length} files?`) }).click();
   const open = page.getByRole('link', { name: /^Open upload #\d+$/ });
   await open.waitFor();
