@@ -14,6 +14,10 @@ export class Survey extends Model<InferAttributes<Survey>, InferCreationAttribut
   declare endsOn: string;
   declare status: CreationOptional<SurveyStatus>;
   declare publishedAt: CreationOptional<Date | null>;
+  /** Frozen at publishing: the survey's figures, and the cost settings and parameters that made them. */
+  declare publishedSummary: CreationOptional<Record<string, unknown> | null>;
+  declare publishedSettings: CreationOptional<Record<string, unknown> | null>;
+  declare publishedBy: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -26,6 +30,9 @@ Survey.init(
     endsOn: { type: DataTypes.DATEONLY, allowNull: false },
     status: { type: DataTypes.STRING(20), allowNull: false, defaultValue: 'planned' },
     publishedAt: { type: DataTypes.DATE, allowNull: true },
+    publishedSummary: { type: DataTypes.JSON, allowNull: true },
+    publishedSettings: { type: DataTypes.JSON, allowNull: true },
+    publishedBy: { type: DataTypes.INTEGER, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

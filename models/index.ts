@@ -2,9 +2,12 @@
 import { ApiToken } from './ApiToken';
 import { Area } from './Area';
 import { AuditEvent } from './AuditEvent';
+import { FieldNote } from './FieldNote';
 import { InstrumentProfile } from './InstrumentProfile';
+import { Invitation } from './Invitation';
 import { SignInAttempt } from './SignInAttempt';
 import { Site } from './Site';
+import { SiteCostSettings } from './SiteCostSettings';
 import { SiteMembership } from './SiteMembership';
 import { SourceFile } from './SourceFile';
 import { Survey } from './Survey';
@@ -14,6 +17,7 @@ import { Trap } from './Trap';
 import { TrapVerdict } from './TrapVerdict';
 import { Upload } from './Upload';
 import { User } from './User';
+import { WorkOrder } from './WorkOrder';
 
 User.belongsToMany(Site, { through: SiteMembership, foreignKey: 'userId', otherKey: 'siteId', as: 'sites' });
 Site.belongsToMany(User, { through: SiteMembership, foreignKey: 'siteId', otherKey: 'userId', as: 'users' });
@@ -59,7 +63,18 @@ TrapVerdict.belongsTo(Trap, { foreignKey: 'trapId', as: 'trap' });
 TrapVerdict.belongsTo(User, { foreignKey: 'decidedBy', as: 'decider' });
 Trap.hasMany(TrapVerdict, { foreignKey: 'trapId', as: 'verdicts' });
 
+Site.hasOne(SiteCostSettings, { foreignKey: 'siteId', as: 'costSettings' });
+SiteCostSettings.belongsTo(Site, { foreignKey: 'siteId', as: 'site' });
+
+WorkOrder.belongsTo(Trap, { foreignKey: 'trapId', as: 'trap' });
+WorkOrder.belongsTo(Survey, { foreignKey: 'surveyId', as: 'survey' });
+WorkOrder.belongsTo(User, { foreignKey: 'assigneeId', as: 'assignee' });
+Trap.hasMany(WorkOrder, { foreignKey: 'trapId', as: 'workOrders' });
+
+FieldNote.belongsTo(Trap, { foreignKey: 'trapId', as: 'trap' });
+FieldNote.belongsTo(User, { foreignKey: 'createdBy', as: 'author' });
+
 export {
-  ApiToken, Area, AuditEvent, InstrumentProfile, SignInAttempt, Site, SiteMembership, SourceFile, Survey,
-  Test, TestSeries, Trap, TrapVerdict, Upload, User,
+  ApiToken, Area, AuditEvent, FieldNote, InstrumentProfile, Invitation, SignInAttempt, Site, SiteCostSettings, SiteMembership,
+  SourceFile, Survey, Test, TestSeries, Trap, TrapVerdict, Upload, User, WorkOrder,
 };

@@ -5,6 +5,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { databasePath, sequelize } from '@/lib/db';
 import { migrator, seeder } from '@/lib/migrator';
+import { writeDemoDayFiles } from '@/seeders/demo-meter-files';
 import { DEMO_ANALYST_TOKEN, DEMO_PASSWORDS, DEMO_USERS } from '@/seeders/demo-scenario';
 
 const root = path.resolve(__dirname, '..');
@@ -23,6 +24,10 @@ async function prepareDatabase() {
   console.log(`  ${migrated.length} migration(s) applied`);
   const seeded = await seeder(sequelize).up();
   console.log(seeded.length ? `  demo scenario seeded (${seeded.map((s) => s.name).join(', ')})` : '  demo scenario already present');
+  // The rest of today's route, as the meters would export it: files to try uploading.
+  const dayDir = path.join(path.dirname(databasePath()), 'sample-meter-files', 'demo-day');
+  await writeDemoDayFiles(dayDir);
+  console.log(`  meter files of the traps not yet tested in the survey in progress: ${dayDir}`);
   await sequelize.close();
 }
 

@@ -7,6 +7,7 @@ import {
 import { InstrumentProfileSchema } from '@/lib/import/instrument-profile';
 import { VERDICT_CODES } from '@/lib/analysis/verdict-codes';
 import { apiTokenInputSchema } from '@/lib/validation/api-token';
+import { costSettingsSchema } from '@/lib/validation/cost-settings';
 import { areaInputSchema } from '@/lib/validation/area';
 import { idSchema } from '@/lib/validation/common';
 import { siteInputSchema, siteUpdateSchema } from '@/lib/validation/site';
@@ -346,6 +347,31 @@ export const ROUTES = {
     method: 'GET', path: '/api/traps/{trapId}/history', permission: 'register.read', tag: 'Register',
     summary: "A trap across its site's surveys: trap-point tests with their figures, and each survey's decision.",
     params: z.object({ trapId: idSchema }), response: z.object({ items: z.array(z.record(z.string(), z.unknown())) }),
+  }),
+  getCostSettings: defineRoute({
+    method: 'GET', path: '/api/sites/{siteId}/cost-settings', permission: 'site.read', tag: 'Outcomes',
+    summary: "How the site prices lost steam and counts CO2 (the analysis defaults until an admin sets them; the factor's source and year beside it).",
+    params: siteParams, response: costSettingsSchema.extend({ currency: z.string(), isDefault: z.boolean() }),
+  }),
+  updateCostSettings: defineRoute({
+    method: 'PUT', path: '/api/sites/{siteId}/cost-settings', permission: 'settings.cost', tag: 'Outcomes',
+    summary: 'Set the site\'s cost and emission settings (admin). Draft surveys follow them; published ones keep theirs.',
+    params: siteParams, body: costSettingsSchema, response: costSettingsSchema.extend({ currency: z.string(), isDefault: z.boolean() }),
+  }),
+  surveySummary: defineRoute({
+    method: 'GET', path: '/api/surveys/{surveyId}/summary', permission: 'survey.read', tag: 'Outcomes',
+    summary: 'Coverage, verdict counts, failure rate, steam lost, cost and CO2 per year, in total and by area, and the costliest failures; with the settings that produced them.',
+    params: z.object({ surveyId: idSchema }), response: z.record(z.string(), z.unknown()),
+  }),
+  publishSurvey: defineRoute({
+    method: 'POST', path: '/api/surveys/{surveyId}/publish', permission: 'report.publish', tag: 'Outcomes',
+    summary: 'Publish a survey: its verdicts and figures are frozen with the settings of now. Needs every tested trap decided, or acceptUndecided.',
+    params: z.object({ surveyId: idSchema }), body: z.object({ acceptUndecided: z.boolean().default(false) }), response: z.record(z.string(), z.unknown()),
+  }),
+  siteTrends: defineRoute({
+    method: 'GET', path: '/api/sites/{siteId}/trends', permission: 'site.read', tag: 'Outcomes',
+    summary: "Every survey of the site side by side: failure rate and losses in total and per area.",
+    params: siteParams, response: z.record(z.string(), z.unknown()),
   }),
 } as const;
 

@@ -22,8 +22,9 @@ export async function applyProfileToUpload(actor: Actor, uploadId: number, profi
   const upload = await Upload.findByPk(uploadId);
   if (!upload) throw notFound('upload');
   await sequelize.transaction(async (transaction) => {
+    // Re-processing reads again every file of the profile's layout, whichever profile read it before.
     const where = reprocess
-      ? { uploadId, kind: { [Op.in]: ['file', 'entry'] }, [Op.or]: [{ profileId }, { status: 'needs_mapping', fingerprint: profile.fingerprint }] }
+      ? { uploadId, kind: { [Op.in]: ['file', 'entry'] }, fingerprint: profile.fingerprint, status: { [Op.in]: ['processed', 'needs_mapping', 'failed'] } }
       : { uploadId, status: 'needs_mapping', fingerprint: profile.fingerprint };
     const files = await SourceFile.findAll({ where, transaction });
     if (files.length === 0) throw new AppError('conflict', `No file of this upload has the layout of "${profile.name}".`);

@@ -13,7 +13,7 @@ describe('register in the browser', () => {
   });
   afterAll(async () => {
     await context?.close();
-    fs.rmSync(userDataDir, { recursive: true, force: true });
+    if (userDataDir) fs.rmSync(userDataDir, { recursive: true, force: true });
   });
 
   async function freshPage(): Promise<Page> {

@@ -39,7 +39,7 @@ describe('review in the browser', () => {
   });
   afterAll(async () => {
     await context?.close();
-    fs.rmSync(userDataDir, { recursive: true, force: true });
+    if (userDataDir) fs.rmSync(userDataDir, { recursive: true, force: true });
   });
 
   it('an analyst reviews three traps by keyboard, and the trail shows each action', async () => {
@@ -64,6 +64,7 @@ describe('review in the browser', () => {
     await page.getByLabel('Reason').fill('hissing at the outlet on the second visit');
     await page.getByRole('button', { name: 'Save override' }).click();
     await page.getByTestId('review-progress').filter({ hasText: '2 of 3 reviewed' }).waitFor();
+    await expect.poll(current).not.toBe(second);
 
     const third = await current();
     expect(new Set([first, second, third]).size).toBe(3);

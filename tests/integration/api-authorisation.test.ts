@@ -77,6 +77,18 @@ const SAMPLES: Record<RouteName, Sample> = {
   },
   getTest: async (s, { admin }) => ({ params: { testId: (await admin.get(`/api/sites/${s.siteId}/tests?pageSize=1`)).body.items[0].id } }),
   trapHistory: (s) => ({ params: { trapId: s.trapId } }),
+  getCostSettings: (s) => ({ params: { siteId: s.siteId } }),
+  updateCostSettings: (s) => ({
+    params: { siteId: s.siteId },
+    body: { operatingHoursPerYear: 8000, steamPricePerTonne: 35, fuelPricePerGj: null, boilerEfficiency: 0.857, feedwaterC: 105, fuel: 'natural_gas', co2KgPerGj: 50.29, co2FactorSource: 'EPA 40 CFR 98 Table C-1', co2FactorYear: 2016 },
+  }),
+  surveySummary: (s) => ({ params: { surveyId: s.surveyId } }),
+  publishSurvey: async (s, { admin }) => {
+    // A fresh survey each time: publishing is once only.
+    const survey = await admin.post(`/api/sites/${s.siteId}/surveys`, { name: unique('To publish'), startsOn: '2026-10-01', endsOn: '2026-10-02', status: 'in_progress' });
+    return { params: { surveyId: survey.body.id ?? s.surveyId }, body: { acceptUndecided: true } };
+  },
+  siteTrends: (s) => ({ params: { siteId: s.siteId } }),
   revokeApiToken: async (_s, { admin, analystId }) => {
     const token = await admin.post('/api/api-tokens', { name: unique('to-revoke'), userId: analystId });
     return { params: { tokenId: token.body.id } };

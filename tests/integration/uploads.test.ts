@@ -26,7 +26,9 @@ describe('uploads', () => {
   });
 
   it('holds a new layout for mapping, reads it once a profile is saved, and recognises it afterwards', async () => {
-    const bDay = fixtureFile('model-b/B_2025-04-08.csv');
+    // The demo seed knows model B; a meter whose preamble says "Surveyor" instead of "Operator" is a layout of its own.
+    const original = fixtureFile('model-b/B_2025-04-08.csv');
+    const bDay = { name: 'B_2025-04-08.csv', bytes: Buffer.from(Buffer.from(original.bytes).toString('latin1').replace('Operator:', 'Surveyor:'), 'latin1') };
     const sent = await upload(analyst, surveyId, [bDay]);
     expect(sent.status).toBe(201);
     const waiting = await settled(analyst, sent.body.id);
@@ -38,6 +40,7 @@ describe('uploads', () => {
     expect(waiting.unknownLayouts[0].detection).toMatchObject({ delimiter: ';', decimalMark: ',' });
 
     const definition = JSON.parse(fs.readFileSync(path.join(METERS, 'model-b/model-b.profile.json'), 'utf8'));
+    definition.preambleKeys = definition.preambleKeys.map((k: string) => (k === 'Operator' ? 'Surveyor' : k));
     const profile = await analyst.post('/api/instrument-profiles', { name: unique('Model B'), definition });
     expect(profile.status).toBe(201);
     expect(profile.body.fingerprint).toBe(file.fingerprint);

@@ -16,15 +16,20 @@ export async function demoSites(admin: Client): Promise<{ own: SiteIds; other: S
     const trapId = (await admin.get(`/api/sites/${siteId}/traps?pageSize=1`)).body.items[0].id;
     const surveys = (await admin.get(`/api/sites/${siteId}/surveys`)).body.items as { id: number; status: string }[];
     const surveyId = surveys.find((s) => s.status === 'in_progress')!.id;
-    // One imported test per site, of a tag the register knows (imported once per run: the
-    // same bytes again would only be recognised as a duplicate).
-    let test = (await admin.get(`/api/sites/${siteId}/tests?trapId=${trapId}`)).body.items[0];
+    // One imported test per site, of a tag the register knows, in an upload of the admin's own
+    // (the demo seed's uploads are the analyst's). Imported once per run: the same bytes again
+    // would only be recognised as a duplicate.
+    const uploads = (await admin.get(`/api/sites/${siteId}/uploads`)).body.items as { id: number; createdBy: string; surveyId: number }[];
+    const mine = new Set(uploads.filter((u) => u.createdBy === 'Demo Admin' && u.surveyId === surveyId).map((u) => u.id));
+    const tests = (await admin.get(`/api/sites/${siteId}/tests?surveyId=${surveyId}&trapId=${trapId}`)).body.items as { id: number; uploadId: number }[];
+    let test = tests.find((t) => mine.has(t.uploadId));
     if (!test) {
       const trapTag = (await admin.get(`/api/traps/${trapId}`)).body.tag;
       const sent = await upload(admin, surveyId, [modelAFileFor(trapTag)]);
       const done = await settled(admin, sent.body.id);
       test = (await admin.get(`/api/sites/${siteId}/tests?uploadId=${done.id}`)).body.items[0];
     }
+    if (!test) throw new Error(`No test of trap ${trapId} could be imported for site ${siteId}.`);
     return { siteId, areaId, trapId, surveyId, uploadId: test.uploadId, testId: test.id };
   };
   await ensureProfile(admin, MODEL_A.file, MODEL_A.name);

@@ -1,0 +1,145 @@
+import 'server-only';
+import { Op } from 'sequelize';
+import type { Actor } from '@/lib/auth/actor';
+import { DEFAULT_PARAMS, resolveParams, type SeverityMode } from '@/lib/analysis/defaults';
+import { isVerdictCode, type VerdictCode } from '@/lib/analysis/verdict-codes';
+import { sequelize } from '@/lib/db';
+import { AppError, notFound } from '@/lib/http/errors';
+import { costOverrides, type CostSettings } from '@/lib/outcomes/cost-params';
+import { computeSurveyFigures, type SurveyFigures, type TrapOutcomeInput } from '@/lib/outcomes/survey-figures';
+import type { CostSettingsInput } from '@/lib/validation/cost-settings';
+import { Area, Site, SiteCostSettings, Survey, Test, Trap, TrapVerdict } from '@/models';
+import { recordAudit } from './audit';
+import { reviewState } from './review';
+
+/** The site's cost settings, or the analysis defaults (no price: cost unknown until an admin sets one). */
+export async function getCostSettings(siteId: number): Promise<CostSettings & { isDefault: boolean }> {
+  const site = await Site.findByPk(siteId);
+  if (!site) throw notFound('site');
+  const row = await SiteCostSettings.findOne({ where: { siteId } });
+  if (row) {
+    return {
+      operatingHoursPerYear: row.operatingHoursPerYear, steamPricePerTonne: row.steamPricePerTonne, fuelPricePerGj: row.fuelPricePerGj,
+      boilerEfficiency: row.boilerEfficiency, feedwaterC: row.feedwaterC, fuel: row.fuel, co2KgPerGj: row.co2KgPerGj,
+      co2FactorSource: row.co2FactorSource, co2FactorYear: row.co2FactorYear, currency: site.currency, isDefault: false,
+    };
+  }
+  const d = DEFAULT_PARAMS;
+  return {
+    operatingHoursPerYear: d.loss.operatingHoursPerYear, steamPricePerTonne: null, fuelPricePerGj: null,
+    boilerEfficiency: d.cost.boilerEfficiency, feedwaterC: d.cost.feedwaterC, fuel: d.cost.emissionFactor.fuel,
+    co2KgPerGj: d.cost.emissionFactor.kgCo2PerGj, co2FactorSource: d.cost.emissionFactor.source, co2FactorYear: d.cost.emissionFactor.year,
+    currency: site.currency, isDefault: true,
+  };
+}
+
+export async function updateCostSettings(actor: Actor, siteId: number, input: CostSettingsInput) {
+  await sequelize.transaction(async (transaction) => {
+    const existing = await SiteCostSettings.findOne({ where: { siteId }, transaction });
+    const before = existing ? existing.get({ plain: true }) : null;
+    if (existing) await existing.update({ ...input, updatedBy: actor.userId }, { transaction });
+    else await SiteCostSettings.create({ ...input, siteId, updatedBy: actor.userId }, { transaction });
+    await recordAudit(actor, { siteId, action: 'settings.cost', entityType: 'site_cost_settings', entityId: siteId, before: before as Record<string, unknown> | null, after: input }, transaction);
+  });
+  return getCostSettings(siteId);
+}
+
+/** Every trap of the site with its verdict in the survey: the analyst's where decided, else the suggestion of its latest trap-point test. */
+async function outcomeInputs(survey: Survey): Promise<TrapOutcomeInput[]> {
+  const [traps, tests, decisions] = await Promise.all([
+    Trap.findAll({ where: { siteId: survey.siteId }, include: [{ model: Area, as: 'area', attributes: ['name'] }] }),
+    Test.findAll({ where: { surveyId: survey.id, role: 'trap', matchStatus: 'matched' }, attributes: ['id', 'trapId', 'startedAt', 'createdAt', 'suggestedVerdict', 'figures'] }),
+    TrapVerdict.findAll({ where: { surveyId: survey.id } }),
+  ]);
+  const latest = new Map<number, Test>();
+  for (const t of tests) {
+    const seen = latest.get(t.trapId!);
+    if (!seen || t.startedAt > seen.startedAt) latest.set(t.trapId!, t);
+  }
+  const decisionOf = new Map(decisions.map((d) => [d.trapId, d]));
+  return traps.map((trap) => {
+    const test = latest.get(trap.id);
+    const d = decisionOf.get(trap.id);
+    const state = test ? reviewState(d, test) : d?.state === 'retest' ? 'retest_pending' : 'unreviewed';
+    const decided = state === 'confirmed' || state === 'overridden';
+    const suggested = isVerdictCode(test?.suggestedVerdict) ? (test!.suggestedVerdict as VerdictCode) : null;
+    const lossMode = ((test?.figures as { loss?: { lossMode?: string | null } } | null)?.loss?.lossMode ?? null) as SeverityMode | null;
+    return {
+      trapId: trap.id, tag: trap.tag, areaId: trap.areaId ?? null, areaName: trap.area?.name ?? null, status: trap.status,
+      criticality: trap.criticality, application: trap.application ?? null, pressureBarg: trap.pressureBarg, sizeDn: trap.sizeDn ?? null,
+      orificeMm: trap.orificeMm ?? null, verdict: test ? (decided && isVerdictCode(d!.verdict) ? (d!.verdict as VerdictCode) : suggested) : null,
+      decided, retestPending: state === 'retest_pending', suggestedLossMode: lossMode, suggestedVerdict: suggested,
+    };
+  });
+}
+
+export type SurveySummary = {
+  survey: { id: number; siteId: number; name: string; startsOn: string; endsOn: string; status: string; publishedAt: string | null };
+  /** True for a published survey: the figures and settings as they were published. */
+  frozen: boolean;
+  settings: CostSettings;
+  figures: SurveyFigures;
+};
+
+/** A survey's figures: frozen as published, or computed now from the current settings (a draft follows them). */
+export async function surveySummary(surveyId: number): Promise<SurveySummary> {
+  const survey = await Survey.findByPk(surveyId);
+  if (!survey) throw notFound('survey');
+  const head = {
+    id: survey.id, siteId: survey.siteId, name: survey.name, startsOn: survey.startsOn, endsOn: survey.endsOn, status: survey.status,
+    publishedAt: survey.publishedAt?.toISOString() ?? null,
+  };
+  if (survey.status === 'published' && survey.publishedSummary && survey.publishedSettings) {
+    return { survey: head, frozen: true, settings: survey.publishedSettings as unknown as CostSettings, figures: survey.publishedSummary as unknown as SurveyFigures };
+  }
+  const settings = await getCostSettings(survey.siteId);
+  const figures = computeSurveyFigures(await outcomeInputs(survey), resolveParams(costOverrides(settings)));
+  return { survey: head, frozen: false, settings, figures };
+}
+
+/**
+ * Publishing freezes the survey's verdicts and figures with the settings that made them. Every
+ * tested trap must be decided, unless the analyst explicitly accepts the undecided ones.
+ */
+export async function publishSurvey(actor: Actor, surveyId: number, acceptUndecided: boolean) {
+  const survey = await Survey.findByPk(surveyId);
+  if (!survey) throw notFound('survey');
+  if (survey.status === 'published') throw new AppError('conflict', `${survey.name} is already published.`);
+  const summary = await surveySummary(surveyId);
+  const undecided = summary.figures.total.tested - summary.figures.total.decided;
+  if (undecided > 0 && !acceptUndecided) {
+    throw new AppError('conflict', `${undecided} tested trap(s) have no confirmed verdict. Review them, or publish accepting their suggested verdicts.`, { undecided });
+  }
+  await sequelize.transaction(async (transaction) => {
+    await survey.update({
+      status: 'published', publishedAt: new Date(), publishedBy: actor.userId,
+      publishedSummary: summary.figures as unknown as Record<string, unknown>, publishedSettings: summary.settings as unknown as Record<string, unknown>,
+    }, { transaction });
+    await recordAudit(actor, {
+      siteId: survey.siteId, action: 'survey.publish', entityType: 'survey', entityId: surveyId,
+      after: { undecidedAccepted: undecided, failed: summary.figures.total.failed, tested: summary.figures.total.tested },
+    }, transaction);
+  });
+  return surveySummary(surveyId);
+}
+
+/** Every survey of a site side by side, oldest first: the year-over-year view, in total and by area. */
+export async function siteTrends(siteId: number) {
+  const surveys = await Survey.findAll({ where: { siteId, status: { [Op.in]: ['in_progress', 'published'] } }, order: [['startsOn', 'ASC']] });
+  const summaries = await Promise.all(surveys.map((s) => surveySummary(s.id)));
+  const areaNames = [...new Set(summaries.flatMap((s) => s.figures.byArea.map((a) => a.areaName)))].sort();
+  return {
+    surveys: summaries.map((s) => ({
+      id: s.survey.id, name: s.survey.name, startsOn: s.survey.startsOn, status: s.survey.status, frozen: s.frozen,
+      currency: s.settings.currency, total: s.figures.total,
+    })),
+    areas: areaNames.map((name) => ({
+      areaName: name,
+      bySurvey: summaries.map((s) => {
+        const a = s.figures.byArea.find((x) => x.areaName === name);
+        return a ? { tested: a.tested, failed: a.failed, failureRate: a.failureRate, lossKgPerHour: a.lossKgPerHour, costPerYear: a.costPerYear } : null;
+      }),
+    })),
+  };
+}
+export type SiteTrends = Awaited<ReturnType<typeof siteTrends>>;
