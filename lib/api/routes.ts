@@ -14,7 +14,10 @@ import { siteInputSchema, siteUpdateSchema } from '@/lib/validation/site';
 import { surveyInputSchema } from '@/lib/validation/survey';
 import { trapInputSchema, trapListQuerySchema, trapUpdateSchema } from '@/lib/validation/trap';
 import { userInputSchema, userUpdateSchema } from '@/lib/validation/user';
+import { FIELD_NOTE_ROUTES } from './field-note-routes';
+import { REPORT_ROUTES } from './report-routes';
 import { defineRoute } from './spec';
+import { WORK_ORDER_ROUTES } from './work-order-routes';
 
 const siteParams = z.object({ siteId: idSchema });
 const MAX_REGISTER_CSV = 5_000_000;
@@ -142,7 +145,7 @@ const decisionBody = z.discriminatedUnion('action', [
   z.object({ trapId: idSchema, action: z.literal('retest'), reason: reasonText.optional() }),
 ]);
 
-export const ROUTES = {
+const CORE_ROUTES = {
   me: defineRoute({
     method: 'GET', path: '/api/me', permission: 'site.read', tag: 'Account',
     summary: 'Who is calling: user, role, the sites they may see, and whether the call is read-only.',
@@ -374,5 +377,8 @@ export const ROUTES = {
     params: siteParams, response: z.record(z.string(), z.unknown()),
   }),
 } as const;
+
+// Routes of later areas live in files of their own and join the one list here.
+export const ROUTES = { ...CORE_ROUTES, ...WORK_ORDER_ROUTES, ...REPORT_ROUTES, ...FIELD_NOTE_ROUTES } as const;
 
 export type RouteName = keyof typeof ROUTES;

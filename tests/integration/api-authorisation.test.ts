@@ -11,9 +11,13 @@ import { fixtureFile, METERS, modelAFileFor, multipart, settled, upload } from '
 import fs from 'node:fs';
 import path from 'node:path';
 
-type Ctx = { admin: Client; analystId: number };
-type Call = { params: Record<string, number>; body?: unknown };
-type Sample = (ids: SiteIds, ctx: Ctx) => Promise<Call> | Call;
+import { FIELD_NOTE_SAMPLES } from './samples/field-notes';
+import { REPORT_SAMPLES } from './samples/reports';
+import type { Sample } from './samples/sample';
+import { WORK_ORDER_SAMPLES } from './samples/work-orders';
+
+type Ctx = Parameters<Sample>[1];
+type Call = Awaited<ReturnType<Sample>>;
 
 const code = () => `T${Math.random().toString(36).slice(2, 10).toUpperCase()}`.slice(0, 12);
 const csv = () => `tag,trap_type,pressure_barg\n${unique('RG')},thermodynamic_disc,8\n`;
@@ -23,6 +27,9 @@ const profileIdOf = async (admin: Client) =>
   (await admin.get('/api/instrument-profiles')).body.items.find((p: { name: string }) => p.name === MODEL_A.name).id as number;
 
 const SAMPLES: Record<RouteName, Sample> = {
+  ...WORK_ORDER_SAMPLES,
+  ...REPORT_SAMPLES,
+  ...FIELD_NOTE_SAMPLES,
   me: () => ({ params: {} }),
   listSites: () => ({ params: {} }),
   createSite: () => ({ params: {}, body: { name: unique('Site'), code: code(), timeZone: 'Europe/London', currency: 'EUR', unitSystem: 'si' } }),

@@ -1,0 +1,4 @@
+import type { REPORT_ROUTES } from '@/lib/api/report-routes';
+import type { Sample } from './sample';
+
+export const REPORT_SAMPLES: Record<keyof typeof REPORT_ROUTES, Sample> = {};
