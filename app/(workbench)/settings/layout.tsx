@@ -10,6 +10,7 @@ export default async function SettingsLayout({ children }: { children: React.Rea
         { href: '/settings/users', label: 'Users and roles' },
         { href: '/settings/sites', label: 'Sites' },
         { href: '/settings/api-tokens', label: 'API tokens' },
+        { href: '/settings/mailbox', label: 'Development mailbox' },
       ]} />
       {children}
     </div>
