@@ -12,6 +12,8 @@ const nextConfig = {
   // Sequelize finds its SQLite driver at run time; bundled, it cannot (and the build fails on pg-hstore).
   serverExternalPackages: ['sequelize', 'sqlite3'],
   poweredByHeader: false,
+  // For a quick local build while other work is mid-edit; `npm test` always type-checks.
+  typescript: { ignoreBuildErrors: process.env.PLUMEWARD_SKIP_BUILD_TYPECHECK === '1' },
   typedRoutes: false,
   async headers() {
     return [{ source: '/:path*', headers: securityHeaders }];

@@ -4,6 +4,8 @@ import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { databasePath, sequelize } from '@/lib/db';
+import { startMailCatcher } from '@/lib/mail/catcher';
+import { mailboxPath } from '@/lib/mail/config';
 import { migrator, seeder } from '@/lib/migrator';
 import { writeDemoDayFiles } from '@/seeders/demo-meter-files';
 import { DEMO_ANALYST_TOKEN, DEMO_PASSWORDS, DEMO_USERS } from '@/seeders/demo-scenario';
@@ -45,6 +47,18 @@ function build() {
   if (result.status !== 0) process.exit(result.status ?? 1);
 }
 
+// Mail goes to a local SMTP catcher, shown on Settings → Development mailbox, unless SMTP_URL
+// names a real server.
+async function startMail() {
+  if (process.env.SMTP_URL) {
+    step(`E-mail goes to ${process.env.SMTP_URL.replace(/\/\/[^@/]*@/, '//…@')}`);
+    return;
+  }
+  const catcher = await startMailCatcher({ port: Number(process.env.MAIL_CATCHER_PORT ?? 2525), file: mailboxPath() });
+  Object.assign(env, { SMTP_URL: `smtp://127.0.0.1:${catcher.port}`, PLUMEWARD_MAILBOX: catcher.file });
+  step(`Mail catcher on smtp://127.0.0.1:${catcher.port} (messages kept in ${catcher.file}; Settings → Development mailbox)`);
+}
+
 function serve() {
   const server = spawn(process.execPath, [next, 'start', '-p', String(port)], { cwd: root, env, stdio: 'inherit' });
   step(`Plumeward is at ${url}`);
@@ -62,8 +76,9 @@ prepareDatabase()
   .then(() => {
     copySampleFiles();
     build();
-    serve();
+    return startMail();
   })
+  .then(() => serve())
   .catch((err) => {
     console.error(err);
     process.exit(1);

@@ -50,6 +50,8 @@ export async function up() {
         }
       }
       await publishSurvey(actor, survey.id, false);
+      // Published a fortnight after the survey ended, as a plant's report would be.
+      await survey.update({ publishedAt: new Date(Date.parse(survey.endsOn) + 14 * 86_400_000) });
     }
   }
 }

@@ -8,7 +8,7 @@ import { AppError, notFound } from '@/lib/http/errors';
 import { costOverrides, type CostSettings } from '@/lib/outcomes/cost-params';
 import { computeSurveyFigures, type SurveyFigures, type TrapOutcomeInput } from '@/lib/outcomes/survey-figures';
 import type { CostSettingsInput } from '@/lib/validation/cost-settings';
-import { Area, Site, SiteCostSettings, Survey, Test, Trap, TrapVerdict } from '@/models';
+import { Area, Site, SiteCostSettings, Survey, Test, Trap, TrapVerdict, WorkOrder } from '@/models';
 import { recordAudit } from './audit';
 import { reviewState } from './review';
 
@@ -128,7 +128,17 @@ export async function siteTrends(siteId: number) {
   const surveys = await Survey.findAll({ where: { siteId, status: { [Op.in]: ['in_progress', 'published'] } }, order: [['startsOn', 'ASC']] });
   const summaries = await Promise.all(surveys.map((s) => surveySummary(s.id)));
   const areaNames = [...new Set(summaries.flatMap((s) => s.figures.byArea.map((a) => a.areaName)))].sort();
+  // Savings (issue 6): the yearly loss of failed traps whose repair a re-test has verified.
+  const orders = await WorkOrder.findAll({ where: { siteId }, attributes: ['status', 'lossKgPerHour', 'costPerYear'] });
+  const verified = orders.filter((o) => o.status === 'verified');
   return {
+    repairs: {
+      open: orders.filter((o) => o.status === 'open' || o.status === 'scheduled' || o.status === 'reopened').length,
+      done: orders.filter((o) => o.status === 'done').length,
+      verified: verified.length,
+      savedKgPerHour: verified.reduce((sum, o) => sum + (o.lossKgPerHour ?? 0), 0),
+      savedCostPerYear: verified.some((o) => o.costPerYear === null) ? null : verified.reduce((sum, o) => sum + (o.costPerYear ?? 0), 0),
+    },
     surveys: summaries.map((s) => ({
       id: s.survey.id, name: s.survey.name, startsOn: s.survey.startsOn, status: s.survey.status, frozen: s.frozen,
       currency: s.settings.currency, total: s.figures.total,

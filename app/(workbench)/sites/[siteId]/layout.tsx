@@ -13,6 +13,7 @@ export default async function SiteLayout({ children, params }: { children: React
     { href: `${base}/surveys`, label: 'Surveys' },
     ...(may(actor, 'upload.read') ? [{ href: `${base}/uploads`, label: 'Uploads' }] : []),
     { href: `${base}/work-orders`, label: 'Work orders' },
+    { href: `${base}/costs`, label: 'Costs' },
     ...(may(actor, 'register.import') ? [{ href: `${base}/register-import`, label: 'Import register' }] : []),
   ];
   return (

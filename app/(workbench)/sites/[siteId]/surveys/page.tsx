@@ -16,7 +16,7 @@ export default async function SurveysPage({ params }: { params: Promise<{ siteId
           <thead><tr><th>Survey</th><th>Starts</th><th>Ends</th><th>Status</th><th /></tr></thead>
           <tbody>
             {surveys.map((s) => (
-              <tr key={s.id}><td className="font-medium">{s.name}</td><td>{s.startsOn}</td><td>{s.endsOn}</td><td><SurveyStatusLabel status={s.status} /></td>
+              <tr key={s.id}><td className="font-medium"><Link className="hover:text-accent-700 hover:underline" href={`/sites/${siteId}/surveys/${s.id}`}>{s.name}</Link></td><td>{s.startsOn}</td><td>{s.endsOn}</td><td><SurveyStatusLabel status={s.status} /></td>
                 <td className="text-right"><Link className="text-sm text-accent-700 hover:underline" href={`/sites/${siteId}/surveys/${s.id}/review`}>Review queue</Link></td></tr>
             ))}
           </tbody>
