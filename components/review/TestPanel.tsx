@@ -5,6 +5,7 @@ import { useState } from 'react';
 import { VERDICT_CODES, VERDICT_LABELS } from '@/lib/analysis/verdict-codes';
 import { TRAP_TYPE_LABELS, type TrapType } from '@/lib/domain/vocabulary';
 import type { TestDetail } from '@/lib/services/review';
+import { FieldNotes } from './FieldNotes';
 import { TestChart, type ChartFigures } from './TestChart';
 import { VerdictBadge } from './VerdictBadge';
 
@@ -129,6 +130,7 @@ export function TestPanel({ detail, canDecide, onDecide, busy, error, overrideOp
           )}
         </section>
       </div>
+      {trap && <FieldNotes trapId={trap.id} surveyId={test.surveyId} testId={test.id} />}
     </div>
   );
 }

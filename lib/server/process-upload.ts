@@ -10,8 +10,9 @@ import { analyseFile } from '@/lib/pipeline/analyse-file';
 import { settleTests } from '@/lib/pipeline/settle';
 import { testJson } from '@/lib/pipeline/test-json';
 import { registerFromTraps, tagKey, type TrapRegister } from '@/lib/pipeline/trap-register';
-import { InstrumentProfile, Site, SourceFile, Test, TestSeries, Trap, Upload } from '@/models';
+import { FieldNote, InstrumentProfile, Site, SourceFile, Test, TestSeries, Trap, Upload } from '@/models';
 import { packFloat32, packFloat64, unpackFloat32, unpackFloat64 } from './series-codec';
+import { analysisParamsFor } from './analysis-params';
 import { uploadLimits } from './upload-limits';
 import { readStored } from './upload-store';
 
@@ -117,6 +118,7 @@ async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {
   const series = new Map<string, NormalisedTest>();
   const result = analyseFile(bytes, {
     ...place, profile: profile.definition, timeZone: ctx.site.timeZone, register: ctx.register,
+    params: await analysisParamsFor(ctx.site, profile.definition),
     onTest: (analysed, test) => series.set(analysed.key, test),
   });
   await sequelize.transaction(async (transaction) => {
@@ -198,6 +200,7 @@ async function settleUpload(ctx: Context) {
       if (!test || !profile) continue;
       a = measureTest(test, {
         register: ctx.register,
+        params: await analysisParamsFor(ctx.site, profile.definition),
         // As lib/pipeline/analyse-file.ts names a given profile, so pairing sees one layout.
         profile: {
           name: profile.definition.name, source: 'given', referenceLink: profile.definition.referenceLink,
@@ -208,7 +211,9 @@ async function settleUpload(ctx: Context) {
     // Keyed by row id: two uploaded files may share a name.
     analysed.push({ ...a, key: String(row.id) });
   }
-  const settled = settleTests(analysed);
+  // Decision-table row 1: a field note "line out of service" on the trap in this survey.
+  const lineOut = new Set((await FieldNote.findAll({ where: { surveyId: ctx.upload.surveyId, kind: 'line_out_of_service' }, attributes: ['trapId'] })).map((n) => n.trapId));
+  const settled = settleTests(analysed, { lineOutOfService: (tag) => lineOut.has(ctx.trapIdByTag.get(tagKey(tag)) ?? 0) });
   await sequelize.transaction(async (transaction) => {
     for (const s of settled) {
       // A reference linked across files now knows its trap.

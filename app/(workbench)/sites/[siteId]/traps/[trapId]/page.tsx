@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { FieldNotes } from '@/components/review/FieldNotes';
 import { TrapHistory } from '@/components/review/TrapHistory';
 import { SafetyCaution } from '@/components/SafetyCaution';
 import { may, requireSiteActor } from '@/lib/auth/page';
@@ -57,6 +58,7 @@ export default async function TrapPage({ params }: { params: Promise<{ siteId: s
       <section className="panel p-5">
         <h3 className="mb-3 font-semibold">Surveys, tests and verdicts</h3>
         <TrapHistory trapId={trap.id} siteId={siteId} />
+        <div className="mt-4"><FieldNotes trapId={trap.id} /></div>
       </section>
       {trail.length > 0 && (
         <section className="panel p-5">
