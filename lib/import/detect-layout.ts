@@ -416,6 +416,7 @@ export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDete
       role: role.value,
       referenceLink: link.value,
       levelOffsetDb: 0,
+      bands: null,
       split: { minGapS: 5, gapPeriods: 10 },
       fingerprint,
     };

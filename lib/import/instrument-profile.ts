@@ -125,6 +125,11 @@ export const InstrumentProfileSchema = z.object({
   role: RoleSourceSchema,
   referenceLink: ReferenceLinkSchema,
   levelOffsetDb: z.number().min(-100).max(100).default(0).describe('calibration offset added to every level (dB)'),
+  bands: z
+    .object({ quietMaxDb: z.number().min(-20).max(150).optional(), liveSteamMinDb: z.number().min(-20).max(150).optional() })
+    .nullable()
+    .default(null)
+    .describe("this meter model's calibrated band limits (dB); null: the trap-type defaults (BRIEF §4a precedence: type < profile < site)"),
   split: z
     .object({ minGapS: z.number().positive().default(5), gapPeriods: z.number().positive().default(10) })
     .default({ minGapS: 5, gapPeriods: 10 })

@@ -12,6 +12,7 @@ import { testJson } from '@/lib/pipeline/test-json';
 import { registerFromTraps, tagKey, type TrapRegister } from '@/lib/pipeline/trap-register';
 import { FieldNote, InstrumentProfile, Site, SourceFile, Test, TestSeries, Trap, Upload } from '@/models';
 import { packFloat32, packFloat64, unpackFloat32, unpackFloat64 } from './series-codec';
+import { analysisParamsFor } from './analysis-params';
 import { uploadLimits } from './upload-limits';
 import { readStored } from './upload-store';
 
@@ -56,6 +57,7 @@ export async function processUpload(uploadId: number) {
   }
   await settleUpload(ctx);
   await finish(upload);
+  await settleWorkOrdersAfterUpload(uploadId);
 }
 
 export async function entryBytes(entry: SourceFile): Promise<Uint8Array> {
@@ -117,6 +119,7 @@ async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {
   const series = new Map<string, NormalisedTest>();
   const result = analyseFile(bytes, {
     ...place, profile: profile.definition, timeZone: ctx.site.timeZone, register: ctx.register,
+    params: await analysisParamsFor(ctx.site, profile.definition),
     onTest: (analysed, test) => series.set(analysed.key, test),
   });
   await sequelize.transaction(async (transaction) => {
@@ -198,6 +201,7 @@ async function settleUpload(ctx: Context) {
       if (!test || !profile) continue;
       a = measureTest(test, {
         register: ctx.register,
+        params: await analysisParamsFor(ctx.site, profile.definition),
         // As lib/pipeline/analyse-file.ts names a given profile, so pairing sees one layout.
         profile: {
           name: profile.definition.name, source: 'given', referenceLink: profile.definition.referenceLink,

@@ -48,6 +48,7 @@ export function startingProfile(detection: LayoutDetection | null, fingerprint: 
     role: { from: 'none' },
     referenceLink: { by: 'same-tag' },
     levelOffsetDb: 0,
+    bands: null,
     split: { minGapS: 5, gapPeriods: 10 },
     fingerprint,
   };
