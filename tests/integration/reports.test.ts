@@ -2,13 +2,14 @@
 // cells, CSV records) against the survey's own figures from the API; a formula-looking area name
 // made through the API comes out neutralised; another site's report does not exist for a viewer.
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
-import * as pdfjs from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { kgToLb, tonnesToKlb } from '@/lib/analysis/units';
 import { demoSites, newUser, signInAdmin, type SiteIds } from '../support/fixtures';
 import { baseUrl, Client, unique } from '../support/http';
 import { modelAFileFor, settled, upload } from '../support/uploads';
+import { csvRecords, en, readPdf, readWorkbook as workbook, sheetRecords as records } from '../lib/reports/read-report';
+
+const pdfText = async (bytes: Uint8Array) => (await readPdf(bytes)).map((p) => p.text);
 
 type Figures = {
   total: { registered: number; tested: number; failed: number; failureRate: number | null; lossKgPerHour: number; lossTonnesPerYear: number; costPerYear: number | null };
@@ -21,35 +22,6 @@ async function download(secret: string, path: string) {
   const res = await fetch(baseUrl() + path, { headers: { authorization: `Bearer ${secret}` } });
   return { status: res.status, headers: res.headers, bytes: new Uint8Array(await res.arrayBuffer()) };
 }
-
-async function pdfText(bytes: Uint8Array) {
-  const doc = await pdfjs.getDocument({ data: bytes.slice() }).promise;
-  const pages: string[] = [];
-  for (let i = 1; i <= doc.numPages; i++) {
-    const content = await (await doc.getPage(i)).getTextContent();
-    pages.push(content.items.map((item) => ('str' in item ? item.str : '')).join(' ').replace(/\s+/g, ' '));
-  }
-  return pages;
-}
-
-async function workbook(bytes: Uint8Array) {
-  const wb = new ExcelJS.Workbook();
-  await wb.xlsx.load(Buffer.from(bytes) as unknown as ArrayBuffer);
-  return wb;
-}
-
-/** Rows under a sheet's header (row 4), keyed by header. */
-function records(ws: ExcelJS.Worksheet) {
-  const header = (ws.getRow(4).values as unknown[]).slice(1) as string[];
-  const out: Record<string, ExcelJS.Cell>[] = [];
-  for (let r = 5; r <= ws.rowCount && ws.getRow(r).hasValues; r++) out.push(Object.fromEntries(header.map((h, i) => [h, ws.getRow(r).getCell(i + 1)])));
-  return out;
-}
-
-const csvRecords = (bytes: Uint8Array) =>
-  Papa.parse<Record<string, string | number | null>>(new TextDecoder().decode(bytes), { header: true, dynamicTyping: true, skipEmptyLines: true });
-
-const en = (v: number, digits: number) => v.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
 
 describe('survey reports', () => {
   let admin: Client;

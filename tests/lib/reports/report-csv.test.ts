@@ -1,13 +1,10 @@
 // The CSV read back with papaparse: one record per failed trap (or area), numbers as numbers,
 // text neutralised, and each row naming its survey and status.
-import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { buildReportCsv } from '@/lib/reports/report-csv';
 import { DRAFT_NOTE, reportFileName } from '@/lib/reports/report-data';
+import { csvRecords as parse } from './read-report';
 import { reportFixture } from './report-fixture';
-
-const parse = (bytes: Uint8Array) =>
-  Papa.parse<Record<string, string | number | null>>(new TextDecoder().decode(bytes), { header: true, dynamicTyping: true, skipEmptyLines: true });
 
 describe('buildReportCsv', () => {
   it('lists the failures costliest first, numbers as numbers, formula text neutralised', () => {

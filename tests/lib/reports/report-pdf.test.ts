@@ -1,26 +1,12 @@
 // The PDF read back with pdfjs-dist: the text carries the figures (formatted independently here),
 // every page its status line and number, the method and the cautions; the charts are vector paths.
 import { describe, expect, it } from 'vitest';
-import * as pdfjs from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { REPORT_CAUTIONS } from '@/lib/reports/cautions';
 import { loadReportFonts } from '@/lib/reports/fonts';
 import { DRAFT_NOTE } from '@/lib/reports/report-data';
 import { buildReportPdf } from '@/lib/reports/report-pdf';
+import { en, pdfjs, readPdf } from './read-report';
 import { reportFixture } from './report-fixture';
-
-async function readPdf(bytes: Uint8Array) {
-  const doc = await pdfjs.getDocument({ data: bytes.slice(), useSystemFonts: false }).promise;
-  const pages: { text: string; view: number[]; ops: number[] }[] = [];
-  for (let i = 1; i <= doc.numPages; i++) {
-    const page = await doc.getPage(i);
-    const content = await page.getTextContent();
-    const text = content.items.map((item) => ('str' in item ? item.str : '')).join(' ').replace(/\s+/g, ' ');
-    pages.push({ text, view: page.view, ops: (await page.getOperatorList()).fnArray });
-  }
-  return pages;
-}
-
-const en = (v: number, digits: number) => v.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
 
 // Each build subsets two fonts and each read parses every page: seconds, not milliseconds.
 describe('buildReportPdf', { timeout: 30_000 }, () => {

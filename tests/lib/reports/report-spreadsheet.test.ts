@@ -5,25 +5,8 @@ import { describe, expect, it } from 'vitest';
 import { DRAFT_NOTE } from '@/lib/reports/report-data';
 import { buildReportSpreadsheet } from '@/lib/reports/report-spreadsheet';
 import { REPORT_CAUTIONS } from '@/lib/reports/cautions';
+import { readWorkbook as read, sheetRecords as records } from './read-report';
 import { reportFixture } from './report-fixture';
-
-async function read(bytes: Uint8Array) {
-  const wb = new ExcelJS.Workbook();
-  await wb.xlsx.load(Buffer.from(bytes) as unknown as ArrayBuffer);
-  return wb;
-}
-
-/** The rows below a sheet's header row (row 4), keyed by header. */
-function records(ws: ExcelJS.Worksheet) {
-  const header = (ws.getRow(4).values as unknown[]).slice(1) as string[];
-  const out: Record<string, ExcelJS.Cell>[] = [];
-  for (let r = 5; r <= ws.rowCount; r++) {
-    const row = ws.getRow(r);
-    if (!row.hasValues) break;
-    out.push(Object.fromEntries(header.map((h, i) => [h, row.getCell(i + 1)])));
-  }
-  return out;
-}
 
 describe('buildReportSpreadsheet', () => {
   it('has one sheet per table, each with the status line', async () => {
