@@ -4,6 +4,7 @@ import { SubmitButton } from '@/components/SubmitButton';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { FormError } from '@/components/FormError';
+import { InvitationForm } from '@/components/mail/InvitationForm';
 import { useActionForm } from '@/components/useActionForm';
 import { createUserAction, updateUserAction } from '@/lib/actions/settings';
 import { ROLES, ROLE_LABELS } from '@/lib/domain/vocabulary';
@@ -81,6 +82,7 @@ export function UserSettings({ users, sites, selfId }: { users: UserDto[]; sites
           <tbody>{users.map((u) => <UserRow key={u.id} user={u} sites={sites} selfId={selfId} />)}</tbody>
         </table>
       </div>
+      <InvitationForm sites={sites} />
       <p className="text-xs text-ink-faint">A disabled user is refused on their very next request, and a changed role or site list applies at once: every request re-reads them.</p>
       <form method="post" onSubmit={onSubmit} className="panel grid gap-3 p-4 md:grid-cols-2" noValidate>
         <h2 className="font-semibold md:col-span-2">New user</h2>

@@ -11,6 +11,7 @@ import { settleTests } from '@/lib/pipeline/settle';
 import { testJson } from '@/lib/pipeline/test-json';
 import { registerFromTraps, tagKey, type TrapRegister } from '@/lib/pipeline/trap-register';
 import { FieldNote, InstrumentProfile, Site, SourceFile, Test, TestSeries, Trap, Upload } from '@/models';
+import { settleWorkOrdersAfterUpload } from '@/lib/services/work-orders';
 import { packFloat32, packFloat64, unpackFloat32, unpackFloat64 } from './series-codec';
 import { analysisParamsFor } from './analysis-params';
 import { uploadLimits } from './upload-limits';

@@ -5,11 +5,13 @@ import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { startMailCatcher } from '../../lib/mail/catcher';
 
 declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string;
     dbPath: string;
+    mailboxPath: string;
   }
 }
 
@@ -54,6 +56,9 @@ export default async function setup(project: TestProject) {
   const dbPath = path.join(dir, 'plumeward.sqlite');
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
+  // Real SMTP over loopback: the app sends to this catcher, which keeps each message for the mailbox.
+  const mailboxPath = path.join(dir, 'mailbox.jsonl');
+  const catcher = await startMailCatcher({ file: mailboxPath });
   const env: NodeJS.ProcessEnv = {
     ...process.env,
     PLUMEWARD_DB: dbPath,
@@ -65,6 +70,9 @@ export default async function setup(project: TestProject) {
     PLUMEWARD_MAX_FILE_MB: '8',
     PLUMEWARD_MAX_FILES: '60',
     PLUMEWARD_MAX_UPLOAD_MB: '40',
+    SMTP_URL: `smtp://127.0.0.1:${catcher.port}`,
+    MAIL_FROM: 'Plumeward tests <no-reply@plumeward.example>',
+    PLUMEWARD_MAILBOX: mailboxPath,
   };
   runDb('migrate', env);
   runDb('seed', env);
@@ -77,9 +85,11 @@ export default async function setup(project: TestProject) {
 
   project.provide('baseUrl', baseUrl);
   project.provide('dbPath', dbPath);
+  project.provide('mailboxPath', mailboxPath);
 
   return async () => {
     server.kill('SIGTERM');
+    await catcher.close();
     fs.writeFileSync(path.join(dir, 'server.log'), output);
   };
 }

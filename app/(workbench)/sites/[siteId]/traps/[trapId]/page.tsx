@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { FieldNotes } from '@/components/review/FieldNotes';
 import { TrapHistory } from '@/components/review/TrapHistory';
 import { SafetyCaution } from '@/components/SafetyCaution';
+import { TrapWorkOrders } from '@/components/work-orders/TrapWorkOrders';
 import { may, requireSiteActor } from '@/lib/auth/page';
 import {
   APPLICATION_LABELS, CRITICALITY_LABELS, DISCHARGES_TO_LABELS, TRAP_STATUS_LABELS, TRAP_TYPE_LABELS,
@@ -60,6 +61,7 @@ export default async function TrapPage({ params }: { params: Promise<{ siteId: s
         <TrapHistory trapId={trap.id} siteId={siteId} />
         <div className="mt-4"><FieldNotes trapId={trap.id} /></div>
       </section>
+      <TrapWorkOrders actor={actor} siteId={siteId} trapId={trap.id} />
       {trail.length > 0 && (
         <section className="panel p-5">
           <h3 className="mb-3 font-semibold">Changes to this record</h3>
