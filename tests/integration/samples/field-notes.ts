@@ -13,6 +13,12 @@ export function photoForm(bytes: Uint8Array | string, name = 'trap.png', fields:
   return form;
 }
 
+/** Looked up at call time: re-processing an upload (another sample) stores its tests anew. */
+async function currentTestId(admin: Client, s: SiteIds): Promise<number> {
+  const tests = (await admin.get(`/api/sites/${s.siteId}/tests?surveyId=${s.surveyId}&trapId=${s.trapId}&role=trap&pageSize=1`)).body.items as { id: number }[];
+  return tests[0]?.id ?? s.testId;
+}
+
 const notesOf = (s: SiteIds) => `/api/surveys/${s.surveyId}/traps/${s.trapId}/field-notes`;
 
 async function remark(client: Client, s: SiteIds) {
@@ -38,10 +44,10 @@ async function deletableNote(s: SiteIds, { admin }: SampleContext) {
 }
 
 export const FIELD_NOTE_SAMPLES: Record<keyof typeof FIELD_NOTE_ROUTES, Sample> = {
-  createFieldNote: (s) => ({ params: { surveyId: s.surveyId, trapId: s.trapId }, body: { kind: 'insulation_missing', text: unique('bare elbow'), testId: s.testId } }),
+  createFieldNote: async (s, { admin }) => ({ params: { surveyId: s.surveyId, trapId: s.trapId }, body: { kind: 'insulation_missing', text: unique('bare elbow'), testId: await currentTestId(admin, s) } }),
   listTrapFieldNotes: (s) => ({ params: { surveyId: s.surveyId, trapId: s.trapId } }),
   uploadFieldNotePhoto: (s) => ({ params: { surveyId: s.surveyId, trapId: s.trapId }, body: photoForm(TINY_PNG, 'trap.png', { text: 'outlet side' }) }),
-  listTestFieldNotes: (s) => ({ params: { testId: s.testId } }),
+  listTestFieldNotes: async (s, { admin }) => ({ params: { testId: await currentTestId(admin, s) } }),
   listTrapNotesAcrossSurveys: (s) => ({ params: { trapId: s.trapId } }),
   getFieldNotePhoto: async (s, { admin }) => {
     const res = await admin.request('POST', `${notesOf(s)}/photo`, photoForm(TINY_PNG));
