@@ -45,3 +45,16 @@ const cache = globalThis as unknown as { plumewardSequelize?: Sequelize };
 /** The one Sequelize instance of this process (kept on globalThis so development hot reloads reuse it). */
 export const sequelize: Sequelize = cache.plumewardSequelize ?? createSequelize(databasePath());
 cache.plumewardSequelize = sequelize;
+
+const queue = globalThis as unknown as { plumewardWriteQueue?: Promise<unknown> };
+
+/**
+ * A write transaction, one at a time in this process. SQLite takes one writer anyway; letting
+ * several wait inside the driver blocks libuv's few threads in busy handlers while the writer
+ * holding the lock needs one of them to finish — so they queue here instead. Do not nest.
+ */
+export function writeTransaction<T>(work: (transaction: Transaction) => Promise<T>): Promise<T> {
+  const run = (queue.plumewardWriteQueue ?? Promise.resolve()).then(() => sequelize.transaction(work));
+  queue.plumewardWriteQueue = run.catch(() => undefined);
+  return run;
+}

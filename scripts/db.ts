@@ -5,6 +5,7 @@ import { migrator, seeder } from '@/lib/migrator';
 const commands: Record<string, () => Promise<string[]>> = {
   migrate: async () => (await migrator(sequelize).up()).map((m) => `migrated ${m.name}`),
   'migrate:undo': async () => (await migrator(sequelize).down()).map((m) => `reverted ${m.name}`),
+  'migrate:undo:all': async () => (await migrator(sequelize).down({ to: 0 })).map((m) => `reverted ${m.name}`),
   seed: async () => (await seeder(sequelize).up()).map((m) => `seeded ${m.name}`),
   'seed:undo': async () => (await seeder(sequelize).down({ to: 0 })).map((m) => `unseeded ${m.name}`),
 };

@@ -2,6 +2,7 @@ import 'server-only';
 import { getServerSession } from 'next-auth';
 import type { Role } from '@/lib/domain/vocabulary';
 import { AppError } from '@/lib/http/errors';
+import { writeTransaction } from '@/lib/db';
 import { ApiToken } from '@/models';
 import { activeUser } from './current-user';
 import { authOptions } from './options';
@@ -40,7 +41,10 @@ async function actorFromToken(secret: string): Promise<Actor> {
   const { user, siteIds } = found;
   const limited = token.siteIds;
   const scoped = limited ? (siteIds === 'all' ? limited : siteIds.filter((id) => limited.includes(id))) : siteIds;
-  await token.update({ lastUsedAt: new Date() }, { silent: true });
+  // "Last used" to the minute is enough, and spares a write on every scripted call.
+  if (!token.lastUsedAt || Date.now() - token.lastUsedAt.getTime() > 60_000) {
+    await writeTransaction((transaction) => token.update({ lastUsedAt: new Date() }, { silent: true, transaction }));
+  }
   return {
     userId: user.id, name: user.name, email: user.email, role: user.role,
     via: 'token', readOnly: token.readOnly, siteIds: scoped, tokenId: token.id,

@@ -1,5 +1,6 @@
 import 'server-only';
 import { Op } from 'sequelize';
+import { writeTransaction } from '@/lib/db';
 import { Upload } from '@/models';
 import { processUpload } from './process-upload';
 import { clearIncoming } from './receive-upload';
@@ -14,7 +15,7 @@ const worker = (state.plumewardImportWorker ??= { running: false, again: false, 
 export async function startImportWorker() {
   if (worker.started) return;
   worker.started = true;
-  await Upload.update({ status: 'queued' }, { where: { status: 'processing' } });
+  await writeTransaction((transaction) => Upload.update({ status: 'queued' }, { where: { status: 'processing' }, transaction }));
   await clearIncoming().catch((err) => console.warn('Could not tidy the incoming upload folder', err));
   kickImportWorker();
 }
@@ -35,7 +36,7 @@ export function kickImportWorker() {
           if (!next) break;
           await processUpload(next.id).catch(async (err) => {
             console.error(`Upload ${next.id} failed`, err);
-            await Upload.update({ status: 'failed', error: 'The import stopped on an unexpected error; it has been logged.', finishedAt: new Date() }, { where: { id: next.id } });
+            await writeTransaction((transaction) => Upload.update({ status: 'failed', error: 'The import stopped on an unexpected error; it has been logged.', finishedAt: new Date() }, { where: { id: next.id }, transaction }));
           });
         }
       } while (worker.again);

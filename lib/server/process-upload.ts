@@ -1,7 +1,7 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { DETECT_SAMPLE_BYTES, detectLayout, type LayoutDetection } from '@/lib/import/detect-layout';
 import type { NormalisedTest } from '@/lib/import/normalised-test';
 import { readZip } from '@/lib/import/zip-read';
@@ -44,12 +44,12 @@ export async function processUpload(uploadId: number) {
   const upload = await Upload.findByPk(uploadId);
   if (!upload) return;
   const site = (await Site.findByPk(upload.siteId))!;
-  await upload.update({ status: 'processing', startedAt: upload.startedAt ?? new Date(), error: null });
+  await writeTransaction((transaction) => upload.update({ status: 'processing', startedAt: upload.startedAt ?? new Date(), error: null }, { transaction }));
   const ctx: Context = { upload, site, ...(await loadRegister(site.id)), analysed: new Map() };
 
   // A zip still "pending" was interrupted while unpacking: its entries are made again.
   for (const zip of await SourceFile.findAll({ where: { uploadId, kind: 'zip', status: 'pending' } })) {
-    await SourceFile.destroy({ where: { containerId: zip.id } });
+    await writeTransaction((transaction) => SourceFile.destroy({ where: { containerId: zip.id }, transaction }));
     await unpackZip(ctx, zip);
   }
   for (const file of await SourceFile.findAll({ where: { uploadId, kind: { [Op.in]: ['file', 'entry'] }, status: 'pending' }, order: [['id', 'ASC']] })) {
@@ -85,16 +85,18 @@ async function unpackZip(ctx: Context, zip: SourceFile) {
     }
     const sha256 = createHash('sha256').update(read.bytes).digest('hex');
     const earlier = await SourceFile.findOne({ where: { surveyId: zip.surveyId, sha256, status: { [Op.in]: ['pending', 'needs_mapping', 'processed'] } } });
-    const row = await SourceFile.create({
+    const row = await writeTransaction((transaction) => SourceFile.create({
       uploadId: zip.uploadId, siteId: zip.siteId, surveyId: zip.surveyId, containerId: zip.id, name: zip.name, entry: entry.name,
       kind: 'entry', sha256, size: read.bytes.length, status: earlier ? 'duplicate' : 'pending', profileId: null,
       duplicateOf: earlier?.id ?? null, hints: entry.hints,
-    });
+    }, { transaction }));
     if (!earlier) entries.push({ row, bytes: read.bytes });
   }
   const refused = contents.problems.some((p) => p.severity === 'error') && contents.entries.length === 0;
-  await zip.update({ status: refused ? 'failed' : 'unpacked', problems });
-  await ctx.upload.increment({ filesTotal: entries.length, filesDone: 1 });
+  await writeTransaction(async (transaction) => {
+    await zip.update({ status: refused ? 'failed' : 'unpacked', problems }, { transaction });
+    await ctx.upload.increment({ filesTotal: entries.length, filesDone: 1 }, { transaction });
+  });
   for (const { row, bytes } of entries) await processFile(ctx, row, bytes);
 }
 
@@ -104,8 +106,10 @@ async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {
     ...place, isWholeFile: bytes.length <= DETECT_SAMPLE_BYTES,
   });
   if (!detection.ok) {
-    await file.update({ status: 'failed', fingerprint: detection.fingerprint, detection: null, problems: detection.problems });
-    await ctx.upload.increment({ filesDone: 1 });
+    await writeTransaction(async (transaction) => {
+      await file.update({ status: 'failed', fingerprint: detection.fingerprint, detection: null, problems: detection.problems }, { transaction });
+      await ctx.upload.increment({ filesDone: 1 }, { transaction });
+    });
     return;
   }
   const profile = file.profileId
@@ -113,8 +117,10 @@ async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {
     : await InstrumentProfile.findOne({ where: { fingerprint: detection.fingerprint }, order: [['updatedAt', 'DESC']] });
   if (!profile) {
     // A layout no profile knows: the file waits for an analyst to map it in the wizard.
-    await file.update({ status: 'needs_mapping', fingerprint: detection.fingerprint, detection: detectionSummary(detection), problems: detection.problems });
-    await ctx.upload.increment({ filesDone: 1 });
+    await writeTransaction(async (transaction) => {
+      await file.update({ status: 'needs_mapping', fingerprint: detection.fingerprint, detection: detectionSummary(detection), problems: detection.problems }, { transaction });
+      await ctx.upload.increment({ filesDone: 1 }, { transaction });
+    });
     return;
   }
   const series = new Map<string, NormalisedTest>();
@@ -123,7 +129,7 @@ async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {
     params: await analysisParamsFor(ctx.site, profile.definition),
     onTest: (analysed, test) => series.set(analysed.key, test),
   });
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     await Test.destroy({ where: { sourceFileId: file.id }, transaction });
     let samples = 0;
     for (const analysed of result.tests) {
@@ -216,7 +222,7 @@ async function settleUpload(ctx: Context) {
   // Decision-table row 1: a field note "line out of service" on the trap in this survey.
   const lineOut = new Set((await FieldNote.findAll({ where: { surveyId: ctx.upload.surveyId, kind: 'line_out_of_service' }, attributes: ['trapId'] })).map((n) => n.trapId));
   const settled = settleTests(analysed, { lineOutOfService: (tag) => lineOut.has(ctx.trapIdByTag.get(tagKey(tag)) ?? 0) });
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     for (const s of settled) {
       // A reference linked across files now knows its trap.
       const trapTag = s.role === 'trap' ? s.tag : s.linkedTrapTag;
@@ -234,9 +240,9 @@ async function finish(upload: Upload) {
   const unmatched = await Test.count({ where: { uploadId: upload.id, matchStatus: 'unmatched' } });
   const files = await SourceFile.findAll({ where: { uploadId: upload.id, containerId: null }, attributes: ['status'] });
   const allFailed = files.length > 0 && files.every((f) => f.status === 'failed');
-  await upload.update({
+  await writeTransaction((transaction) => upload.update({
     status: waiting || unmatched ? 'waiting_for_mapping' : allFailed ? 'failed' : 'done',
     error: allFailed ? 'No file of this upload could be read; see each file\'s problems.' : null,
     finishedAt: new Date(),
-  });
+  }, { transaction }));
 }

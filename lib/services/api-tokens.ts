@@ -3,7 +3,7 @@ import { Op } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
 import { siteIdsOf } from '@/lib/auth/current-user';
 import { displayPrefix, hashToken, newTokenSecret } from '@/lib/auth/tokens';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { ApiTokenInput } from '@/lib/validation/api-token';
 import { ApiToken, User } from '@/models';
@@ -36,7 +36,7 @@ export async function createToken(actor: Actor, input: ApiTokenInput) {
     }
   }
   const secret = newTokenSecret();
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const token = await ApiToken.create(
       { userId: owner.id, name: input.name, tokenHash: hashToken(secret), prefix: displayPrefix(secret), readOnly: input.readOnly, siteIds: input.siteIds },
       { transaction },
@@ -48,7 +48,7 @@ export async function createToken(actor: Actor, input: ApiTokenInput) {
 }
 
 export async function revokeToken(actor: Actor, tokenId: number) {
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const token = await ApiToken.findOne({ where: { id: tokenId, revokedAt: { [Op.is]: null } }, transaction });
     if (!token) throw notFound('active token');
     await token.update({ revokedAt: new Date() }, { transaction });

@@ -1,7 +1,7 @@
 import 'server-only';
 import { col, fn, UniqueConstraintError } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { AreaInput } from '@/lib/validation/area';
 import { Area, Trap } from '@/models';
@@ -31,7 +31,7 @@ function nameClash(err: unknown): never {
 }
 
 export async function createArea(actor: Actor, siteId: number, input: AreaInput) {
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const area = await Area.create({ ...input, siteId }, { transaction }).catch(nameClash);
     await recordAudit(actor, { siteId, action: 'area.create', entityType: 'area', entityId: area.id, after: areaDto(area) }, transaction);
     return areaDto(area);
@@ -39,7 +39,7 @@ export async function createArea(actor: Actor, siteId: number, input: AreaInput)
 }
 
 export async function updateArea(actor: Actor, areaId: number, input: Partial<AreaInput>) {
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const area = await Area.findByPk(areaId, { transaction });
     if (!area) throw notFound('area');
     const diff = changedFields(areaDto(area), input);

@@ -9,7 +9,7 @@ import {
 } from '@/lib/api/field-note-routes';
 import type { Actor } from '@/lib/auth/actor';
 import { roleMay } from '@/lib/auth/permissions';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import type { Role } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import { fieldIssues } from '@/lib/http/zod-issues';
@@ -139,7 +139,7 @@ type NewNote = { kind: FieldNoteKindCode; text?: string | null; testId?: number 
 
 async function insertNote(actor: Actor, surveyId: number, trapId: number, input: NewNote) {
   const testId = await assertTestOfTrap(input.testId, surveyId, trapId);
-  const note = await sequelize.transaction(async (transaction) => {
+  const note = await writeTransaction(async (transaction) => {
     const survey = await openSurvey(surveyId, transaction);
     const row = await FieldNote.create({
       siteId: survey.siteId, surveyId, trapId, testId, kind: input.kind, text: input.text?.trim() || null,
@@ -162,7 +162,7 @@ export async function createFieldNote(actor: Actor, surveyId: number, trapId: nu
 export async function deleteFieldNote(actor: Actor, surveyId: number, noteId: number) {
   const note = await FieldNote.findByPk(noteId);
   if (!note || note.surveyId !== surveyId) throw notFound('field note');
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const survey = await openSurvey(surveyId, transaction);
     if (!mayDelete(actor, note, survey.status)) {
       throw new AppError('forbidden', 'Only the note\'s author or an analyst may delete it.');

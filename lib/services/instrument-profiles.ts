@@ -1,7 +1,7 @@
 import 'server-only';
 import { UniqueConstraintError } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import type { InstrumentProfile as ProfileDefinition } from '@/lib/import/instrument-profile';
 import { headerFingerprint } from '@/lib/import/header-fingerprint';
 import { AppError, notFound } from '@/lib/http/errors';
@@ -51,7 +51,7 @@ const nameTaken = (err: unknown): never => {
 };
 
 export async function createProfile(actor: Actor, input: ProfileInput) {
-  const id = await sequelize.transaction(async (transaction) => {
+  const id = await writeTransaction(async (transaction) => {
     const profile = await InstrumentProfile.create(
       { name: input.name, ...withFingerprint(input.definition, input.fingerprint), createdBy: actor.userId },
       { transaction },
@@ -64,7 +64,7 @@ export async function createProfile(actor: Actor, input: ProfileInput) {
 
 /** Edits move the revision; files already read keep the revision they were read with. */
 export async function updateProfile(actor: Actor, profileId: number, input: Partial<ProfileInput>) {
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const profile = await InstrumentProfile.findByPk(profileId, { transaction });
     if (!profile) throw notFound('instrument profile');
     const next = {

@@ -3,7 +3,7 @@ import { Op } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
 import { DEFAULT_PARAMS, resolveParams, type SeverityMode } from '@/lib/analysis/defaults';
 import { isVerdictCode, type VerdictCode } from '@/lib/analysis/verdict-codes';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import { costOverrides, type CostSettings } from '@/lib/outcomes/cost-params';
 import { computeSurveyFigures, type SurveyFigures, type TrapOutcomeInput } from '@/lib/outcomes/survey-figures';
@@ -34,7 +34,7 @@ export async function getCostSettings(siteId: number): Promise<CostSettings & { 
 }
 
 export async function updateCostSettings(actor: Actor, siteId: number, input: CostSettingsInput) {
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const existing = await SiteCostSettings.findOne({ where: { siteId }, transaction });
     const before = existing ? existing.get({ plain: true }) : null;
     if (existing) await existing.update({ ...input, updatedBy: actor.userId }, { transaction });
@@ -110,7 +110,7 @@ export async function publishSurvey(actor: Actor, surveyId: number, acceptUndeci
   if (undecided > 0 && !acceptUndecided) {
     throw new AppError('conflict', `${undecided} tested trap(s) have no confirmed verdict. Review them, or publish accepting their suggested verdicts.`, { undecided });
   }
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     await survey.update({
       status: 'published', publishedAt: new Date(), publishedBy: actor.userId,
       publishedSummary: summary.figures as unknown as Record<string, unknown>, publishedSettings: summary.settings as unknown as Record<string, unknown>,

@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { parseRegisterCsv, type RegisterProblem } from '@/lib/import/register-csv';
 import { AppError } from '@/lib/http/errors';
 import { Area, Trap } from '@/models';
@@ -80,7 +80,7 @@ export async function applyRegisterImport(actor: Actor, siteId: number, csv: str
   if (rowProblems.length && !skipRejectedRows) {
     throw new AppError('invalid', `${plan.counts.rejected} row(s) have problems. Fix them, or import the other rows and skip these.`, rowProblems);
   }
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const areaIdByName = new Map(
       (await Area.findAll({ where: { siteId }, transaction })).map((a) => [a.name.toLowerCase(), a.id]),
     );

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
 import { isVerdictCode, severityRank, type VerdictCode } from '@/lib/analysis/verdict-codes';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import type { TrapType } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import { Area, Survey, Test, Trap, TrapVerdict, User } from '@/models';
@@ -112,7 +112,7 @@ export async function decideVerdict(actor: Actor, surveyId: number, decision: De
       throw new AppError('invalid', 'Invalid request body.', [{ path: 'testId', message: 'Not a trap-point test of this trap in this survey.' }]);
     }
   }
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const existing = await TrapVerdict.findOne({ where: { surveyId, trapId: trap.id }, transaction });
     const decided = existing && (existing.state === 'confirmed' || existing.state === 'overridden');
     const reason = decision.reason?.trim() || null;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { fn, col, Op, UniqueConstraintError } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { SiteInput } from '@/lib/validation/site';
 import { Area, Site, Survey, Trap } from '@/models';
@@ -54,7 +54,7 @@ function uniqueClash(err: unknown): never {
 }
 
 export async function createSite(actor: Actor, input: SiteInput) {
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const site = await Site.create(input, { transaction }).catch(uniqueClash);
     await recordAudit(actor, { siteId: site.id, action: 'site.create', entityType: 'site', entityId: site.id, after: siteDto(site) }, transaction);
     return siteDto(site);
@@ -62,7 +62,7 @@ export async function createSite(actor: Actor, input: SiteInput) {
 }
 
 export async function updateSite(actor: Actor, siteId: number, input: Partial<SiteInput>) {
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const site = await Site.findByPk(siteId, { transaction });
     if (!site) throw notFound('site');
     const diff = changedFields(siteDto(site), input);

@@ -1,6 +1,6 @@
 import 'server-only';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { notFound } from '@/lib/http/errors';
 import type { SurveyInput } from '@/lib/validation/survey';
 import { Survey } from '@/models';
@@ -22,7 +22,7 @@ export async function getSurvey(surveyId: number) {
 }
 
 export async function createSurvey(actor: Actor, siteId: number, input: SurveyInput) {
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const survey = await Survey.create({ ...input, siteId }, { transaction });
     await recordAudit(actor, { siteId, action: 'survey.create', entityType: 'survey', entityId: survey.id, after: surveyDto(survey) }, transaction);
     return surveyDto(survey);

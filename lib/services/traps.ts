@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op, UniqueConstraintError, type Order, type WhereOptions } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { TrapInput, TrapListQuery } from '@/lib/validation/trap';
 import { Area, Trap } from '@/models';
@@ -61,7 +61,7 @@ function tagClash(err: unknown): never {
 
 export async function createTrap(actor: Actor, siteId: number, input: TrapInput) {
   await assertAreaOfSite(input.areaId, siteId);
-  const id = await sequelize.transaction(async (transaction) => {
+  const id = await writeTransaction(async (transaction) => {
     const trap = await Trap.create({ ...input, siteId }, { transaction }).catch(tagClash);
     await recordAudit(actor, { siteId, action: 'trap.create', entityType: 'trap', entityId: trap.id, after: trapDto(trap) }, transaction);
     return trap.id;
@@ -73,7 +73,7 @@ export async function updateTrap(actor: Actor, trapId: number, input: Partial<Tr
   const existing = await Trap.findByPk(trapId);
   if (!existing) throw notFound('trap');
   await assertAreaOfSite(input.areaId, existing.siteId);
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const trap = await Trap.findByPk(trapId, { transaction });
     if (!trap) throw notFound('trap');
     const diff = changedFields(trapDto(trap), input);

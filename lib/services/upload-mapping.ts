@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import type { MatchStatus } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import { kickImportWorker } from '@/lib/server/import-worker';
@@ -21,7 +21,7 @@ export async function applyProfileToUpload(actor: Actor, uploadId: number, profi
   if (!profile) throw new AppError('invalid', 'Invalid request body.', [{ path: 'profileId', message: 'No such instrument profile.' }]);
   const upload = await Upload.findByPk(uploadId);
   if (!upload) throw notFound('upload');
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     // Re-processing reads again every file of the profile's layout, whichever profile read it before.
     const where = reprocess
       ? { uploadId, kind: { [Op.in]: ['file', 'entry'] }, fingerprint: profile.fingerprint, status: { [Op.in]: ['processed', 'needs_mapping', 'failed'] } }
@@ -63,7 +63,7 @@ export async function decideUploadTag(actor: Actor, uploadId: number, decision: 
     trapId = (await createTrap(actor, upload.siteId, { ...decision.trap, tag: decision.tag.trim() })).id;
   }
   const matchStatus: MatchStatus = decision.action === 'ignore' ? 'ignored' : 'matched';
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     await Test.update({ trapId, matchStatus }, { where: { id: { [Op.in]: mine.map((t) => t.id) } }, transaction });
     await recordAudit(actor, {
       siteId: upload.siteId, action: `upload.tag_${decision.action}`, entityType: 'upload', entityId: uploadId,

@@ -2,7 +2,7 @@ import 'server-only';
 import fs from 'node:fs';
 import { Op } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import type { SourceFileStatus } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { ReceivedFile } from '@/lib/server/receive-upload';
@@ -34,7 +34,7 @@ export async function createUpload(actor: Actor, surveyId: number, files: Receiv
   if (survey.status === 'published') {
     throw new AppError('conflict', `${survey.name} is published; its results are frozen. Upload re-tests into a survey in progress.`);
   }
-  const uploadId = await sequelize.transaction(async (transaction) => {
+  const uploadId = await writeTransaction(async (transaction) => {
     const upload = await Upload.create(
       { siteId: survey.siteId, surveyId, createdBy: actor.userId, status: 'queued', filesTotal: 0 },
       { transaction },
@@ -133,7 +133,7 @@ async function unmatchedTags(uploadId: number) {
 
 /** Saves the wizard's state for one layout (keyed by fingerprint) on the upload. */
 export async function saveMappingDraft(actor: Actor, uploadId: number, draft: { fingerprint: string; step: string; profile: Record<string, unknown> }) {
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const upload = await Upload.findByPk(uploadId, { transaction });
     if (!upload) throw notFound('upload');
     const drafts = { ...(upload.mappingDraft ?? {}) };

@@ -2,7 +2,7 @@ import 'server-only';
 import { Op, UniqueConstraintError } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
 import { hashPassword } from '@/lib/auth/sign-in';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { UserInput, UserUpdate } from '@/lib/validation/user';
 import { Site, SiteMembership, User } from '@/models';
@@ -34,7 +34,7 @@ async function setSites(userId: number, siteIds: number[], transaction: Transact
 
 export async function createUser(actor: Actor, input: UserInput) {
   const passwordHash = await hashPassword(input.password);
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const user = await User.create({ email: input.email, name: input.name, role: input.role, passwordHash }, { transaction }).catch((err) => {
       if (err instanceof UniqueConstraintError) throw new AppError('conflict', 'A user with this e-mail already exists.', [{ path: 'email', message: 'Already in use.' }]);
       throw err;
@@ -51,7 +51,7 @@ export async function updateUser(actor: Actor, userId: number, input: UserUpdate
     throw new AppError('invalid', 'You cannot disable yourself or give up your own admin role; ask another admin.');
   }
   const passwordHash = input.password ? await hashPassword(input.password) : undefined;
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const user = await User.findByPk(userId, { transaction });
     if (!user) throw notFound('user');
     const beforeSites = (await membershipsByUser([userId])).get(userId) ?? [];

@@ -9,7 +9,8 @@ export type Reply = { status: number; body: any; headers: Headers };
 
 export class Client {
   private cookies = new Map<string, string>();
-  constructor(private readonly bearer?: string) {}
+  /** `base`: another server than the shared test server (tests/support/own-server.ts). */
+  constructor(private readonly bearer?: string, private readonly base?: string) {}
 
   private remember(res: Response) {
     for (const line of res.headers.getSetCookie()) {
@@ -32,7 +33,7 @@ export class Client {
       payload = JSON.stringify(body);
       h['content-type'] = 'application/json';
     }
-    const res = await fetch(baseUrl() + path, { method, headers: h, body: payload, redirect: 'manual' });
+    const res = await fetch((this.base ?? baseUrl()) + path, { method, headers: h, body: payload, redirect: 'manual' });
     this.remember(res);
     const text = await res.text();
     let parsed: unknown = text;
@@ -56,8 +57,8 @@ export class Client {
   }
 }
 
-export async function signedIn(email: string, password: string): Promise<Client> {
-  const client = new Client();
+export async function signedIn(email: string, password: string, base?: string): Promise<Client> {
+  const client = new Client(undefined, base);
   await client.signIn(email, password);
   const session = await client.get('/api/auth/session');
   if (!session.body?.user) throw new Error(`Could not sign in as ${email}: ${JSON.stringify(session.body)}`);

@@ -1,0 +1,85 @@
+// Killing the server (SIGKILL) in the middle of an import: after a restart the upload is
+// resumed, no test is half-written or doubled, and the original files are intact.
+import { createHash } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import sqlite3 from 'sqlite3';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO, signedIn } from '../support/http';
+import { runDb, startServer, tempDb, type OwnServer } from '../support/own-server';
+import { modelAFileFor, multipart, type FilePart } from '../support/uploads';
+
+function query<T>(dbPath: string, sql: string): Promise<T[]> {
+  const db = new sqlite3.Database(dbPath, sqlite3.OPEN_READONLY);
+  return new Promise((resolve, reject) => db.all(sql, (err, rows) => { db.close(); return err ? reject(err) : resolve(rows as T[]); }));
+}
+
+describe('an import interrupted by a crash', () => {
+  let server: OwnServer;
+  let dbPath: string;
+  beforeAll(async () => {
+    dbPath = tempDb('restart');
+    runDb('migrate', dbPath);
+    runDb('seed', dbPath);
+    server = await startServer(dbPath);
+  });
+  afterAll(() => {
+    server?.process.kill('SIGKILL');
+  });
+
+  it('resumes after SIGKILL with every file imported once and nothing half-written', async () => {
+    const analyst = await signedIn(DEMO.analyst.email, DEMO.analyst.password, server.baseUrl);
+    const site = (await analyst.get('/api/sites')).body.items.find((s: { code: string }) => s.code === 'FV');
+    const survey = (await analyst.post(`/api/sites/${site.id}/surveys`, { name: 'Crash survey', startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' })).body;
+    const tags = (await analyst.get(`/api/sites/${site.id}/traps?status=in_service&pageSize=500`)).body.items.map((t: { tag: string }) => t.tag);
+    // Many files, each a different test, so the kill lands while files are still waiting.
+    const files: FilePart[] = [];
+    for (let round = 0; files.length < 400; round++) {
+      for (const tag of tags) {
+        if (files.length >= 400) break;
+        const file = modelAFileFor(tag);
+        const text = (file.bytes as string).replaceAll('2025-04-08T09:', `2025-04-08T1${round}:`);
+        files.push({ name: `crash-${round}-${file.name}`, bytes: text });
+      }
+    }
+    const sent = await analyst.request('POST', `/api/surveys/${survey.id}/uploads`, multipart(files));
+    expect(sent.status).toBe(201);
+    const uploadId = sent.body.id as number;
+
+    // Kill it once some files are in and some are not.
+    let progress = { filesDone: 0, filesTotal: files.length };
+    const deadline = Date.now() + 30_000;
+    while (progress.filesDone < 5 && Date.now() < deadline) {
+      progress = (await analyst.get(`/api/uploads/${uploadId}`)).body.progress;
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    server.process.kill('SIGKILL');
+    await new Promise((r) => server.process.once('exit', r));
+    const atKill = await query<{ status: string; n: number }>(dbPath, `SELECT status, COUNT(*) AS n FROM source_files WHERE upload_id = ${uploadId} GROUP BY status`);
+    const pendingAtKill = atKill.find((r) => r.status === 'pending')?.n ?? 0;
+    expect(pendingAtKill, 'the import finished before the kill: make the upload larger').toBeGreaterThan(0);
+    // No file is half-written: a file has all its tests (one) or none, and only imported files have any.
+    const perFile = await query<{ status: string; tests: number }>(dbPath,
+      `SELECT f.status, (SELECT COUNT(*) FROM tests t WHERE t.source_file_id = f.id) AS tests FROM source_files f WHERE f.upload_id = ${uploadId}`);
+    for (const f of perFile) expect(f.tests).toBe(f.status === 'processed' ? 1 : 0);
+
+    server = await startServer(dbPath);
+    const again = await signedIn(DEMO.analyst.email, DEMO.analyst.password, server.baseUrl);
+    let detail = (await again.get(`/api/uploads/${uploadId}`)).body;
+    const until = Date.now() + 120_000;
+    while (['queued', 'processing'].includes(detail.status) && Date.now() < until) {
+      await new Promise((r) => setTimeout(r, 250));
+      detail = (await again.get(`/api/uploads/${uploadId}`)).body;
+    }
+    expect(detail.status).toBe('done');
+    expect(detail.files.every((f: { status: string; testCount: number }) => f.status === 'processed' && f.testCount === 1)).toBe(true);
+    const [{ n }] = await query<{ n: number }>(dbPath, `SELECT COUNT(*) AS n FROM tests WHERE upload_id = ${uploadId}`);
+    expect(n).toBe(files.length);
+    // The originals are kept as received.
+    const store = path.join(path.dirname(dbPath), 'uploads');
+    for (const f of files.slice(0, 25)) {
+      const sha = createHash('sha256').update(f.bytes as string).digest('hex');
+      expect(fs.readFileSync(path.join(store, sha.slice(0, 2), sha), 'utf8')).toBe(f.bytes);
+    }
+  }, 240_000);
+});
