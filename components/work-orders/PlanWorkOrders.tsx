@@ -97,11 +97,11 @@ export function PlanWorkOrders({ siteId, surveyId, candidates }: { siteId: numbe
               return (
                 <tr key={c.trapId} data-testid={`candidate-${c.tag}`} className={row?.picked ? 'bg-accent-50' : ''}>
                   <td>{row ? <input type="checkbox" aria-label={`Pick ${c.tag}`} checked={row.picked} onChange={(e) => set(c.trapId, { picked: e.target.checked })} /> : null}</td>
-                  <td><div className="tag-text">{c.tag}</div><div className="text-xs text-ink-faint">{c.areaName ?? 'No area'}{c.application === 'drip' ? ' · drip on main' : ''}</div></td>
+                  <td><div className="tag-text whitespace-nowrap">{c.tag}</div><div className="whitespace-nowrap text-xs text-ink-faint">{c.areaName ?? 'No area'}{c.application === 'drip' ? ' · drip on main' : ''}</div></td>
                   <td><VerdictBadge code={c.verdict} /></td>
                   <td className="whitespace-nowrap text-right tabular-nums">{c.kgPerHour === null ? '—' : `${c.kgPerHour.toFixed(1)} kg/h`}</td>
                   <td className="whitespace-nowrap text-right tabular-nums">{formatMoney(c.costPerYear, candidates.currency)}</td>
-                  <td className="min-w-64"><PriorityBadge priority={c.priority} /><div className="text-xs text-ink-soft">{c.priorityReason}</div></td>
+                  <td className="min-w-56"><PriorityBadge priority={c.priority} /><div className="text-xs text-ink-soft">{c.priorityReason}</div></td>
                   {row ? (
                     <>
                       <td><select className="field-input mt-0 w-36" aria-label={`Action for ${c.tag}`} value={row.action} onChange={(e) => set(c.trapId, { action: e.target.value as Action })}>
@@ -111,7 +111,7 @@ export function PlanWorkOrders({ siteId, surveyId, candidates }: { siteId: numbe
                         <option value="">not yet</option>
                         {candidates.technicians.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
                       </select></td>
-                      <td><input type="date" className="field-input mt-0 w-40" aria-label={`Due date for ${c.tag}`} value={row.dueOn} onChange={(e) => set(c.trapId, { dueOn: e.target.value })} /></td>
+                      <td><input type="date" className="field-input mt-0 w-36" aria-label={`Due date for ${c.tag}`} value={row.dueOn} onChange={(e) => set(c.trapId, { dueOn: e.target.value })} /></td>
                     </>
                   ) : (
                     <td colSpan={3} className="text-sm">

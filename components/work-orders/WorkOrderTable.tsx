@@ -18,7 +18,7 @@ export function WorkOrderTable({ orders, siteId, showTrap = true }: { orders: Wo
         {orders.map((o) => (
           <tr key={o.id} data-testid={`work-order-${o.id}`}>
             <td><Link className="font-medium text-accent-700 hover:underline" href={`/sites/${siteId}/work-orders/${o.id}`}>#{o.id}</Link></td>
-            {showTrap && <td><div className="tag-text">{o.tag}</div><div className="text-xs text-ink-faint">{o.areaName ?? 'No area'}</div></td>}
+            {showTrap && <td><div className="tag-text whitespace-nowrap">{o.tag}</div><div className="text-xs text-ink-faint">{o.areaName ?? 'No area'}</div></td>}
             <td><VerdictBadge code={o.verdict} /></td>
             <td>{WORK_ORDER_ACTION_LABELS[o.action]}</td>
             <td><PriorityBadge priority={o.priority} /></td>

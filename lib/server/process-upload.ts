@@ -24,7 +24,25 @@ type Context = {
   trapIdByTag: Map<string, number>;
   /** Analysed tests of this run by test id, for settling reference checks across files. */
   analysed: Map<number, AnalysedTest>;
+  /** Per upload: profiles by fingerprint or id, and the analysis parameters of each profile. */
+  profiles: Map<string, InstrumentProfile | null>;
+  params: Map<number, Awaited<ReturnType<typeof analysisParamsFor>>>;
 };
+
+async function profileOf(ctx: Context, key: { id: number } | { fingerprint: string }) {
+  const k = 'id' in key ? `id:${key.id}` : `fp:${key.fingerprint}`;
+  if (!ctx.profiles.has(k)) {
+    ctx.profiles.set(k, 'id' in key
+      ? await InstrumentProfile.findByPk(key.id)
+      : await InstrumentProfile.findOne({ where: { fingerprint: key.fingerprint }, order: [['updatedAt', 'DESC']] }));
+  }
+  return ctx.profiles.get(k) ?? null;
+}
+
+async function paramsOf(ctx: Context, profile: InstrumentProfile) {
+  if (!ctx.params.has(profile.id)) ctx.params.set(profile.id, await analysisParamsFor(ctx.site, profile.definition));
+  return ctx.params.get(profile.id)!;
+}
 
 async function loadRegister(siteId: number) {
   const traps = await Trap.findAll({ where: { siteId }, attributes: ['id', 'tag', 'trapType', 'pressureBarg', 'sizeDn', 'orificeMm', 'status'] });
@@ -45,7 +63,7 @@ export async function processUpload(uploadId: number) {
   if (!upload) return;
   const site = (await Site.findByPk(upload.siteId))!;
   await writeTransaction((transaction) => upload.update({ status: 'processing', startedAt: upload.startedAt ?? new Date(), error: null }, { transaction }));
-  const ctx: Context = { upload, site, ...(await loadRegister(site.id)), analysed: new Map() };
+  const ctx: Context = { upload, site, ...(await loadRegister(site.id)), analysed: new Map(), profiles: new Map(), params: new Map() };
 
   // A zip still "pending" was interrupted while unpacking: its entries are made again.
   for (const zip of await SourceFile.findAll({ where: { uploadId, kind: 'zip', status: 'pending' } })) {
@@ -112,9 +130,7 @@ async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {
     });
     return;
   }
-  const profile = file.profileId
-    ? await InstrumentProfile.findByPk(file.profileId)
-    : await InstrumentProfile.findOne({ where: { fingerprint: detection.fingerprint }, order: [['updatedAt', 'DESC']] });
+  const profile = await profileOf(ctx, file.profileId ? { id: file.profileId } : { fingerprint: detection.fingerprint });
   if (!profile) {
     // A layout no profile knows: the file waits for an analyst to map it in the wizard.
     await writeTransaction(async (transaction) => {
@@ -126,7 +142,7 @@ async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {
   const series = new Map<string, NormalisedTest>();
   const result = analyseFile(bytes, {
     ...place, profile: profile.definition, timeZone: ctx.site.timeZone, register: ctx.register,
-    params: await analysisParamsFor(ctx.site, profile.definition),
+    params: await paramsOf(ctx, profile),
     onTest: (analysed, test) => series.set(analysed.key, test),
   });
   await writeTransaction(async (transaction) => {
@@ -155,7 +171,7 @@ function columnsOf(analysed: AnalysedTest) {
   const json = testJson(analysed);
   return {
     meanLevelDb: json.level.meanDb, dutyCycle: json.cycles.dutyCycle, suggestedVerdict: json.verdict.suggested,
-    confidence: json.verdict.confidence, lossKgPerHour: json.loss.kgPerHour, figures: figuresOf(analysed),
+    confidence: json.verdict.confidence, lossKgPerHour: json.loss.kgPerHour, lossMode: json.loss.lossMode, figures: figuresOf(analysed),
   };
 }
 
@@ -204,11 +220,11 @@ async function settleUpload(ctx: Context) {
     if (!a) {
       const file = files.get(row.sourceFileId)!;
       const test = await normalisedFromStore(row, file);
-      const profile = file.profileId ? await InstrumentProfile.findByPk(file.profileId) : null;
+      const profile = file.profileId ? await profileOf(ctx, { id: file.profileId }) : null;
       if (!test || !profile) continue;
       a = measureTest(test, {
         register: ctx.register,
-        params: await analysisParamsFor(ctx.site, profile.definition),
+        params: await paramsOf(ctx, profile),
         // As lib/pipeline/analyse-file.ts names a given profile, so pairing sees one layout.
         profile: {
           name: profile.definition.name, source: 'given', referenceLink: profile.definition.referenceLink,
@@ -222,14 +238,21 @@ async function settleUpload(ctx: Context) {
   // Decision-table row 1: a field note "line out of service" on the trap in this survey.
   const lineOut = new Set((await FieldNote.findAll({ where: { surveyId: ctx.upload.surveyId, kind: 'line_out_of_service' }, attributes: ['trapId'] })).map((n) => n.trapId));
   const settled = settleTests(analysed, { lineOutOfService: (tag) => lineOut.has(ctx.trapIdByTag.get(tagKey(tag)) ?? 0) });
+  const rowById = new Map(rows.map((r) => [r.id, r]));
   await writeTransaction(async (transaction) => {
     for (const s of settled) {
       // A reference linked across files now knows its trap.
       const trapTag = s.role === 'trap' ? s.tag : s.linkedTrapTag;
       const trapId = trapTag ? ctx.trapIdByTag.get(tagKey(trapTag)) ?? null : null;
+      const row = rowById.get(Number(s.key))!;
+      const columns = columnsOf(s);
+      // Most tests have no reference to pair: their stored figures stand, and are not written again.
+      const unchanged = row.linkedTrapTag === s.linkedTrapTag && (!trapId || row.trapId === trapId)
+        && JSON.stringify(row.figures) === JSON.stringify(columns.figures);
+      if (unchanged || row.matchStatus === 'ignored') continue;
       await Test.update(
-        { ...columnsOf(s), linkedTrapTag: s.linkedTrapTag, ...(trapId ? { trapId, matchStatus: 'matched' as const } : {}) },
-        { where: { id: Number(s.key), matchStatus: { [Op.ne]: 'ignored' } }, transaction },
+        { ...columns, linkedTrapTag: s.linkedTrapTag, ...(trapId ? { trapId, matchStatus: 'matched' as const } : {}) },
+        { where: { id: row.id }, transaction },
       );
     }
   });

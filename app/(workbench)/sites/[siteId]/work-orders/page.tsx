@@ -35,8 +35,8 @@ export default async function WorkOrdersPage({ params, searchParams }: {
   const planned = surveys.filter((s) => s.status !== 'planned');
   return (
     <div className="space-y-4">
-      <div className="grid gap-4 lg:grid-cols-3">
-        <div className="space-y-3 lg:col-span-2">
+      <div className="grid gap-4 2xl:grid-cols-3">
+        <div className="space-y-3 2xl:col-span-2">
           <nav aria-label="Whose orders" className="flex flex-wrap items-center gap-2">
             <Link className={chip(mine)} href={href({ mine: true })} aria-current={mine ? 'page' : undefined}>Assigned to me</Link>
             <Link className={chip(!mine)} href={href({ mine: false })} aria-current={!mine ? 'page' : undefined}>All of this site</Link>
@@ -52,7 +52,7 @@ export default async function WorkOrdersPage({ params, searchParams }: {
             or re-opened when the re-test still finds it failed.
           </p>
         </div>
-        <div className="space-y-4">
+        <div className="grid gap-4 lg:grid-cols-2 2xl:grid-cols-1 2xl:content-start">
           {may(actor, 'workorder.plan') && (
             <section className="panel p-4">
               <h2 className="mb-2 font-semibold">Plan repairs from a survey</h2>

@@ -63,7 +63,7 @@ export default async function WorkOrderPage({ params }: { params: Promise<{ site
             technicians={technicians} mayPlan={may(actor, 'workorder.plan')} mayRecord={may(actor, 'workorder.record')}
           />
         </section>
-        <SafetyCaution context="Before this repair" />
+        <div className="self-start"><SafetyCaution context="Before this repair" /></div>
       </div>
       <section className="panel p-5">
         <h3 className="mb-3 font-semibold">What happened</h3>
