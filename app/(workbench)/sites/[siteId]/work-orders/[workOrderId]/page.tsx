@@ -29,7 +29,7 @@ export default async function WorkOrderPage({ params }: { params: Promise<{ site
     ['Assignee', order.assigneeName ?? 'not assigned'],
     ['Due', <span key="d">{order.dueOn ?? '—'}{order.overdue && <span className="ml-1 font-semibold text-danger-ink">overdue</span>}</span>],
     ['Steam lost', order.lossKgPerHour === null ? '—' : `${order.lossKgPerHour.toFixed(1)} kg/h`],
-    ['Cost of the loss', `${formatMoney(order.costPerYear, order.currency)} a year`],
+    ['Cost of the loss', order.costPerYear === null ? '—' : `${formatMoney(order.costPerYear, order.currency)} a year`],
     ['Repair cost', formatMoney(order.repairCost, order.currency)],
     ['Done', order.doneAt ? `${when(order.doneAt)} by ${order.doneBy ?? '—'}` : '—'],
     ['Verified', order.verifiedAt ? `${when(order.verifiedAt)} by re-test #${order.verifiedByTestId}` : '—'],
