@@ -8,6 +8,7 @@ import * as m20261201010000 from './20261201010000-create-import-tables';
 import * as m20261201020000 from './20261201020000-create-trap-verdicts';
 import * as m20261201030000 from './20261201030000-create-outcome-tables';
 import * as m20261201070000 from './20261201070000-add-test-list-indexes';
+import * as m20261201080000 from './20261201080000-add-test-loss-mode';
 
 export const migrations = [
   { name: '20261201000100-create-users-sites-memberships', ...m20261201000100 },
@@ -19,4 +20,5 @@ export const migrations = [
   { name: '20261201020000-create-trap-verdicts', ...m20261201020000 },
   { name: '20261201030000-create-outcome-tables', ...m20261201030000 },
   { name: '20261201070000-add-test-list-indexes', ...m20261201070000 },
+  { name: '20261201080000-add-test-loss-mode', ...m20261201080000 },
 ];

@@ -33,6 +33,8 @@ export class Test extends Model<InferAttributes<Test>, InferCreationAttributes<T
   declare suggestedVerdict: string | null;
   declare confidence: string | null;
   declare lossKgPerHour: number | null;
+  /** The analysis's loss mode for the suggestion (blow_through, leaking, rapid_cycling), or null. */
+  declare lossMode: CreationOptional<string | null>;
   /** The full figures and the parameters that produced them, so a re-run is reproducible. */
   declare figures: Record<string, unknown> | null;
   declare createdAt: CreationOptional<Date>;
@@ -62,6 +64,7 @@ Test.init(
     suggestedVerdict: { type: DataTypes.STRING(24), allowNull: true },
     confidence: { type: DataTypes.STRING(8), allowNull: true },
     lossKgPerHour: { type: DataTypes.FLOAT, allowNull: true },
+    lossMode: { type: DataTypes.STRING(16), allowNull: true },
     figures: { type: DataTypes.JSON, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,

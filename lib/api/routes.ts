@@ -109,6 +109,7 @@ const testListQuery = z.object({
   uploadId: idSchema.optional(),
   trapId: idSchema.optional(),
   role: z.enum(TEST_ROLES).optional(),
+  figures: z.enum(['none', 'full']).default('none').describe("'full' adds each test's whole figures (a few kB a test)"),
 });
 const seriesQuery = z.object({
   points: z.coerce.number().int().min(10).max(20_000).default(2000).describe('buckets of min/max when decimating'),

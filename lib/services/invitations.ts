@@ -4,7 +4,7 @@ import { Op, UniqueConstraintError } from 'sequelize';
 import type { InvitationInput } from '@/lib/api/work-order-routes';
 import type { Actor } from '@/lib/auth/actor';
 import { hashPassword } from '@/lib/auth/sign-in';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { ROLE_LABELS } from '@/lib/domain/vocabulary';
 import { AppError } from '@/lib/http/errors';
 import { appUrl } from '@/lib/mail/config';
@@ -47,7 +47,7 @@ export async function createInvitation(actor: Actor, input: InvitationInput) {
   if (sites.length !== siteIds.length) throw new AppError('invalid', 'Invalid request body.', [{ path: 'siteIds', message: 'One of these sites does not exist.' }]);
   const token = randomBytes(32).toString('base64url');
   const expiresAt = new Date(Date.now() + invitationHours() * 3_600_000);
-  const invitation = await sequelize.transaction(async (transaction) => {
+  const invitation = await writeTransaction(async (transaction) => {
     // A new invitation replaces any earlier one to the same address that is still open.
     await Invitation.update({ revokedAt: new Date() }, { where: { email: input.email, acceptedAt: null, revokedAt: null }, transaction });
     const made = await Invitation.create({
@@ -81,7 +81,7 @@ const REFUSED: Record<Exclude<InvitationState, 'pending'> | 'unknown', string> =
 /** Uses an invitation once: creates the user with the chosen password and their sites. */
 export async function acceptInvitation(token: string, password: string) {
   const passwordHash = await hashPassword(password);
-  return sequelize.transaction(async (transaction) => {
+  return writeTransaction(async (transaction) => {
     const invitation = await Invitation.findOne({ where: { tokenHash: hashOf(token) }, transaction });
     const state = invitation ? stateOf(invitation) : 'unknown';
     if (state !== 'pending') throw new AppError(state === 'unknown' ? 'not_found' : 'conflict', REFUSED[state]);

@@ -48,10 +48,19 @@ export async function updateCostSettings(actor: Actor, siteId: number, input: Co
 async function outcomeInputs(survey: Survey): Promise<TrapOutcomeInput[]> {
   const [traps, tests, decisions] = await Promise.all([
     Trap.findAll({ where: { siteId: survey.siteId }, include: [{ model: Area, as: 'area', attributes: ['name'] }] }),
-    Test.findAll({ where: { surveyId: survey.id, role: 'trap', matchStatus: 'matched' }, attributes: ['id', 'trapId', 'startedAt', 'createdAt', 'suggestedVerdict', 'figures'] }),
+    Test.findAll({
+      where: { surveyId: survey.id, role: 'trap', matchStatus: 'matched' },
+      attributes: ['id', 'trapId', 'startedAt', 'createdAt', 'suggestedVerdict', 'lossMode'],
+      raw: true,
+    }) as unknown as Promise<Pick<Test, 'id' | 'trapId' | 'startedAt' | 'createdAt' | 'suggestedVerdict' | 'lossMode'>[]>,
     TrapVerdict.findAll({ where: { surveyId: survey.id } }),
   ]);
-  const latest = new Map<number, Test>();
+  // Raw rows (no model instances: surveys hold thousands of tests) may carry dates as text.
+  for (const t of tests) {
+    t.startedAt = new Date(t.startedAt);
+    t.createdAt = new Date(t.createdAt);
+  }
+  const latest = new Map<number, (typeof tests)[number]>();
   for (const t of tests) {
     const seen = latest.get(t.trapId!);
     if (!seen || t.startedAt > seen.startedAt) latest.set(t.trapId!, t);
@@ -63,7 +72,7 @@ async function outcomeInputs(survey: Survey): Promise<TrapOutcomeInput[]> {
     const state = test ? reviewState(d, test) : d?.state === 'retest' ? 'retest_pending' : 'unreviewed';
     const decided = state === 'confirmed' || state === 'overridden';
     const suggested = isVerdictCode(test?.suggestedVerdict) ? (test!.suggestedVerdict as VerdictCode) : null;
-    const lossMode = ((test?.figures as { loss?: { lossMode?: string | null } } | null)?.loss?.lossMode ?? null) as SeverityMode | null;
+    const lossMode = (test?.lossMode ?? null) as SeverityMode | null;
     return {
       trapId: trap.id, tag: trap.tag, areaId: trap.areaId ?? null, areaName: trap.area?.name ?? null, status: trap.status,
       criticality: trap.criticality, application: trap.application ?? null, pressureBarg: trap.pressureBarg, sizeDn: trap.sizeDn ?? null,

@@ -37,7 +37,13 @@ export async function reviewQueue(surveyId: number, f: QueueFilter) {
   const tests = (await Test.findAll({
     where: { surveyId, role: 'trap', matchStatus: 'matched', ...(f.uploadId ? { uploadId: f.uploadId } : {}) },
     attributes: ['id', 'trapId', 'startedAt', 'createdAt', 'suggestedVerdict', 'confidence', 'lossKgPerHour', 'meanLevelDb', 'dutyCycle'],
-  })) as LatestTest[];
+    raw: true,
+  })) as unknown as LatestTest[];
+  // Raw rows (no model instances: surveys hold thousands of tests) may carry dates as text.
+  for (const t of tests) {
+    t.startedAt = new Date(t.startedAt);
+    t.createdAt = new Date(t.createdAt);
+  }
   const latest = new Map<number, LatestTest>();
   const testCount = new Map<number, number>();
   for (const t of tests) {

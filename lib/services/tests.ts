@@ -16,11 +16,15 @@ function testDto(t: Test) {
 }
 export type TestDto = ReturnType<typeof testDto>;
 
-export async function listTests(siteId: number, q: { page: number; pageSize: number; surveyId?: number; uploadId?: number; trapId?: number; role?: 'trap' | 'reference' }) {
+export async function listTests(siteId: number, q: {
+  page: number; pageSize: number; surveyId?: number; uploadId?: number; trapId?: number; role?: 'trap' | 'reference'; figures: 'none' | 'full';
+}) {
   const where: WhereOptions<Test> = { siteId };
   for (const key of ['surveyId', 'uploadId', 'trapId', 'role'] as const) if (q[key] !== undefined) Object.assign(where, { [key]: q[key] });
-  const { rows, count } = await Test.findAndCountAll({ where, order: [['startedAt', 'ASC'], ['id', 'ASC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
-  return { items: rows.map(testDto), total: count, page: q.page, pageSize: q.pageSize };
+  // The full figures are a few kilobytes a test: sent only when asked for.
+  const attributes = q.figures === 'full' ? undefined : { exclude: ['figures'] };
+  const { rows, count } = await Test.findAndCountAll({ where, attributes, order: [['startedAt', 'ASC'], ['id', 'ASC']], limit: q.pageSize, offset: (q.page - 1) * q.pageSize });
+  return { items: rows.map((t) => ({ ...testDto(t), figures: q.figures === 'full' ? t.figures : null })), total: count, page: q.page, pageSize: q.pageSize };
 }
 
 export async function siteIdOfTest(testId: number): Promise<number | null> {

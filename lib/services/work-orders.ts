@@ -6,7 +6,7 @@ import {
   type WorkOrderCreateInput, type WorkOrderDoneInput, type WorkOrderUpdateInput,
 } from '@/lib/api/work-order-routes';
 import type { Actor } from '@/lib/auth/actor';
-import { sequelize } from '@/lib/db';
+import { writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import { appUrl } from '@/lib/mail/config';
 import { assignmentMail, reminderMail, type WorkOrderMailInput } from '@/lib/mail/messages';
@@ -210,7 +210,7 @@ export async function createWorkOrders(actor: Actor, surveyId: number, input: Wo
     throw new AppError('conflict', `${taken.map((c) => `${c.tag} already has work order #${c.order!.id} (${c.order!.status})`).join('; ')}. Edit that order instead.`);
   }
   for (const [i, item] of input.items.entries()) await assertAssignable(survey.siteId, item.assigneeId, `items.${i}.assigneeId`);
-  const ids = await sequelize.transaction(async (transaction) => {
+  const ids = await writeTransaction(async (transaction) => {
     const made: number[] = [];
     for (const item of input.items) {
       const c = byTrap.get(item.trapId)!;
@@ -256,7 +256,7 @@ export async function updateWorkOrder(actor: Actor, id: number, input: WorkOrder
   if (input.status === 'open' && current.status === 'reopened') refuse('A re-opened work order stays re-opened until the work is done again; change its technician or due date instead.');
   if (ASSIGNABLE.includes(current.status) && current.status !== 'reopened') status = input.status === 'open' ? 'open' : plannedStatus(assigneeId, dueOn);
   const newAssignee = assigneeId != null && assigneeId !== current.assigneeId;
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const order = (await WorkOrder.findByPk(id, { transaction }))!;
     const before = snapshot(order);
     await order.update({
@@ -273,7 +273,7 @@ export async function updateWorkOrder(actor: Actor, id: number, input: WorkOrder
 
 /** The technician's record of the work: scheduled (or re-opened) → done, with cost and notes. */
 export async function completeWorkOrder(actor: Actor, id: number, input: WorkOrderDoneInput) {
-  await sequelize.transaction(async (transaction) => {
+  await writeTransaction(async (transaction) => {
     const order = (await WorkOrder.findByPk(id, { transaction }))!;
     if (!order) throw notFound('work order');
     if (order.status === 'open') refuse(`Work order #${id} is not scheduled yet: an analyst assigns a technician and a due date first.`);
@@ -314,7 +314,7 @@ export async function settleWorkOrdersAfterUpload(uploadId: number) {
     const passes = verdict === 'working';
     const fails = isVerdictCode(verdict) && FAILED_VERDICTS.has(verdict as VerdictCode);
     if (!passes && !fails) continue;
-    await sequelize.transaction(async (transaction) => {
+    await writeTransaction(async (transaction) => {
       const fresh = (await WorkOrder.findByPk(order.id, { transaction }))!;
       if (fresh.status !== 'done') return;
       const before = snapshot(fresh);
@@ -347,7 +347,7 @@ export async function sendOverdueReminders(now = new Date(), siteIds: number[] |
       attributes: ['id'],
     });
     for (const { id } of due) {
-      const claimed = await sequelize.transaction(async (transaction) => {
+      const claimed = await writeTransaction(async (transaction) => {
         const order = (await WorkOrder.findByPk(id, { transaction }))!;
         if (!ASSIGNABLE.includes(order.status) || !order.assigneeId || !order.dueOn || order.dueOn >= today) return false;
         if (order.remindedAt && localDate(order.remindedAt, site.timeZone) >= today) return false;

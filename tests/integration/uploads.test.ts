@@ -16,7 +16,7 @@ describe('uploads', () => {
   let analyst: Client;
   let sites: Awaited<ReturnType<typeof demoSites>>;
   let surveyId: number;
-  const testsOf = async (uploadId: number) => (await analyst.get(`/api/sites/${sites.own.siteId}/tests?uploadId=${uploadId}`)).body.items;
+  const testsOf = async (uploadId: number) => (await analyst.get(`/api/sites/${sites.own.siteId}/tests?uploadId=${uploadId}&figures=full`)).body.items;
 
   beforeAll(async () => {
     const admin = await signInAdmin();

@@ -25,7 +25,11 @@ export async function demoSites(admin: Client): Promise<{ own: SiteIds; other: S
     let test = tests.find((t) => mine.has(t.uploadId));
     if (!test) {
       const trapTag = (await admin.get(`/api/traps/${trapId}`)).body.tag;
-      const sent = await upload(admin, surveyId, [modelAFileFor(trapTag)]);
+      // Bytes of their own (a later day), so an earlier run's copy cannot make it a duplicate.
+      const file = modelAFileFor(trapTag);
+      const stamp = new Date(Date.now()).toISOString().slice(0, 13);
+      const bytes = (file.bytes as string).replaceAll('2025-04-08T09', stamp);
+      const sent = await upload(admin, surveyId, [{ name: file.name, bytes }]);
       const done = await settled(admin, sent.body.id);
       test = (await admin.get(`/api/sites/${siteId}/tests?uploadId=${done.id}`)).body.items[0];
     }
