@@ -1,8 +1,10 @@
+import { SAFETY_POINTS, SAFETY_TITLE } from '@/lib/domain/safety';
+
 /**
  * The cautions shown wherever Plumeward guides field work or repairs. Steam work can hurt people;
  * the product reminds, it does not replace the site's permit-to-work and local codes.
  */
-export function SafetyCaution({ context = 'Before work on a steam trap', compact = false }: { context?: string; compact?: boolean }) {
+export function SafetyCaution({ context = SAFETY_TITLE, compact = false }: { context?: string; compact?: boolean }) {
   return (
     <aside role="note" aria-label="Safety" className="rounded-lg border border-caution-line bg-caution-bg p-4 text-sm text-caution-ink" data-testid="safety-caution">
       <div className="mb-2 flex items-center gap-2 font-semibold">
@@ -10,11 +12,7 @@ export function SafetyCaution({ context = 'Before work on a steam trap', compact
         {context}
       </div>
       <ul className={`list-disc space-y-1 pl-5 ${compact ? 'text-xs' : ''}`}>
-        <li>Surfaces, condensate and flash steam are hot enough to burn: wear gloves, eye protection and long sleeves.</li>
-        <li>Measure from the outside only. Never open, unbolt or tap a trap that is under pressure.</li>
-        <li>Before any repair: isolate upstream and downstream, depressurise and drain, apply lockout/tagout, and let it cool.</li>
-        <li>Watch for live steam from vents, test valves and discharges to atmosphere; keep clear of the outlet.</li>
-        <li>Follow your site&apos;s permit-to-work, local codes and licensed practice; they take precedence over this reminder.</li>
+        {SAFETY_POINTS.map((point) => <li key={point}>{point}</li>)}
       </ul>
     </aside>
   );

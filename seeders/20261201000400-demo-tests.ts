@@ -4,7 +4,7 @@
 // as a user's upload. The survey in progress gets its first 40 % of the route; the rest is
 // written to a folder when PLUMEWARD_DEMO_DAY_DIR names one (see writeDemoDayFiles).
 import { Op } from 'sequelize';
-import { headerFingerprint } from '@/lib/import/header-fingerprint';
+import { profileFingerprint } from '@/lib/import/header-fingerprint';
 import { parseInstrumentProfile } from '@/lib/import/instrument-profile';
 import { processUpload } from '@/lib/server/process-upload';
 import { storeBytes } from '@/lib/server/upload-store';
@@ -26,7 +26,7 @@ function profileRow(name: string, json: unknown, createdBy: number) {
   const parsed = parseInstrumentProfile(json);
   if (!parsed.ok) throw new Error(`The fixture profile for ${name} does not parse: ${parsed.issues.join('; ')}`);
   const d = parsed.profile;
-  const fingerprint = d.fingerprint ?? headerFingerprint({ delimiter: d.delimiter, header: d.header, preambleKeys: d.preambleKeys, unitsRow: d.unitsRow });
+  const fingerprint = profileFingerprint(d);
   return { name, fingerprint, definition: { ...d, name, fingerprint }, createdBy };
 }
 

@@ -28,3 +28,8 @@ export function headerFingerprint(input: FingerprintInput): string {
   });
   return `hf1:${createHash('sha256').update(canonical).digest('hex').slice(0, 32)}`;
 }
+
+/** The fingerprint files of a profile's layout have: the profile's own, else made from its layout. */
+export function profileFingerprint(p: { fingerprint?: string; delimiter: string; header: readonly string[]; preambleKeys: readonly string[]; unitsRow: boolean }): string {
+  return p.fingerprint ?? headerFingerprint({ delimiter: p.delimiter, header: p.header, preambleKeys: p.preambleKeys, unitsRow: p.unitsRow });
+}

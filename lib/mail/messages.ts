@@ -3,15 +3,11 @@
 
 export type MailMessage = { to: string; subject: string; text: string; html: string };
 
-/** The safety points of components/SafetyCaution.tsx, as text for e-mails about field work. */
-export const SAFETY_LINES = [
-  'Isolate the trap upstream and downstream before any work, and apply lockout/tagout.',
-  'Depressurise and drain the line, and let it cool: surfaces, condensate and flash steam burn.',
-  'Wear protective equipment: gloves, eye protection and long sleeves; keep clear of the outlet.',
-  'Never open, unbolt or tap a trap that is under pressure.',
-  'Follow your site\'s permit-to-work, local codes and licensed practice; they take precedence over this reminder.',
-] as const;
-export const SAFETY_TITLE = 'Safety before work on a steam trap';
+import { SAFETY_POINTS, SAFETY_TITLE } from '@/lib/domain/safety';
+
+// The one list of safety points (lib/domain/safety.ts), as e-mails carry it.
+export const SAFETY_LINES = SAFETY_POINTS;
+export { SAFETY_TITLE };
 
 const escape = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 

@@ -3,7 +3,7 @@ import { UniqueConstraintError } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
 import { writeTransaction } from '@/lib/db';
 import type { InstrumentProfile as ProfileDefinition } from '@/lib/import/instrument-profile';
-import { headerFingerprint } from '@/lib/import/header-fingerprint';
+import { profileFingerprint } from '@/lib/import/header-fingerprint';
 import { AppError, notFound } from '@/lib/http/errors';
 import { InstrumentProfile, User } from '@/models';
 import { changedFields, recordAudit } from './audit';
@@ -12,9 +12,7 @@ type ProfileInput = { name: string; fingerprint?: string; definition: ProfileDef
 
 /** The fingerprint a profile recognises files by: as given, else the definition's, else computed from its layout. */
 function withFingerprint(definition: ProfileDefinition, given?: string) {
-  const fingerprint = given ?? definition.fingerprint ?? headerFingerprint({
-    delimiter: definition.delimiter, header: definition.header, preambleKeys: definition.preambleKeys, unitsRow: definition.unitsRow,
-  });
+  const fingerprint = given ?? profileFingerprint(definition);
   return { fingerprint, definition: { ...definition, fingerprint } };
 }
 

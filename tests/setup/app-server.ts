@@ -1,10 +1,10 @@
 // Global setup of the app tier: a fresh SQLite file with the real migrations and the demo seed,
 // and the built app (`next build` has run) served on a free loopback port. Tests reach it over HTTP.
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { freePort, runDb } from '../support/own-server';
 import { startMailCatcher } from '../../lib/mail/catcher';
 
 declare module 'vitest' {
@@ -17,16 +17,6 @@ declare module 'vitest' {
 
 const root = path.resolve(__dirname, '../..');
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-    server.on('error', reject);
-  });
-}
 
 function runDb(command: string, env: NodeJS.ProcessEnv) {
   const result = spawnSync(process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/db.ts', command], { cwd: root, env, encoding: 'utf8' });
@@ -74,8 +64,8 @@ export default async function setup(project: TestProject) {
     MAIL_FROM: 'Plumeward tests <no-reply@plumeward.example>',
     PLUMEWARD_MAILBOX: mailboxPath,
   };
-  runDb('migrate', env);
-  runDb('seed', env);
+  runDb('migrate', dbPath);
+  runDb('seed', dbPath);
 
   let output = '';
   const server = spawn(process.execPath, [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-p', String(port), '-H', '127.0.0.1'], { cwd: root, env });

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { PublishSurvey } from '@/components/outcomes/PublishSurvey';
+import { ReportDownloads } from '@/components/reports/ReportDownloads';
 import { VerdictBar } from '@/components/outcomes/VerdictBar';
 import { VerdictBadge } from '@/components/review/VerdictBadge';
 import { SurveyStatusLabel } from '@/components/SurveyStatus';
@@ -40,8 +41,10 @@ export default async function SurveyPage({ params }: { params: Promise<{ siteId:
           <Link className="btn-quiet" href={`${base}/review`}>Review queue</Link>
           <Link className="btn-quiet" href={`${base}/field`}>Field view</Link>
           <Link className="btn-quiet" href={`/sites/${siteId}/work-orders?surveyId=${surveyId}`}>Work orders</Link>
+          {may(actor, 'workorder.plan') && figures.total.failed > 0 && <Link className="btn-primary" href={`/sites/${siteId}/work-orders/plan/${surveyId}`}>Plan repairs</Link>}
         </nav>
       </div>
+      <ReportDownloads surveyId={surveyId} published={frozen} />
       <p className="text-xs text-ink-faint" data-testid="figures-basis">
         {frozen ? `Published ${survey.publishedAt?.slice(0, 10)}: figures frozen with the settings of that day.` : 'Draft: figures follow the current cost settings.'}{' '}
         {figures.basis.convention}; {figures.basis.operatingHoursPerYear.toLocaleString('en-GB')} operating hours a year;{' '}
