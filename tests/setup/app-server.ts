@@ -17,12 +17,6 @@ declare module 'vitest' {
 
 const root = path.resolve(__dirname, '../..');
 
-
-function runDb(command: string, env: NodeJS.ProcessEnv) {
-  const result = spawnSync(process.execPath, ['--conditions=react-server', '--import', 'tsx', 'scripts/db.ts', command], { cwd: root, env, encoding: 'utf8' });
-  if (result.status !== 0) throw new Error(`db ${command} failed:\n${result.stdout}\n${result.stderr}`);
-}
-
 async function waitUntilUp(url: string, server: ChildProcess, log: () => string) {
   const deadline = Date.now() + 60_000;
   while (Date.now() < deadline) {
