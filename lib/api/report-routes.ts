@@ -15,4 +15,10 @@ export const REPORT_ROUTES = {
       table: z.enum(CSV_TABLES).default('failures').describe('which table a CSV holds: failures (costliest first) or areas'),
     }),
   }),
+  emailSurveyReport: defineRoute({
+    method: 'POST', path: '/api/surveys/{surveyId}/report-email', permission: 'report.publish', tag: 'Outcomes',
+    summary: "E-mail a published survey to the site's viewers: headline figures and links (access is checked again when a link is opened).",
+    params: z.object({ surveyId: idSchema }),
+    response: z.object({ recipients: z.array(z.object({ email: z.string(), sent: z.boolean() })) }),
+  }),
 } as const satisfies Record<string, RouteSpec>;

@@ -99,3 +99,20 @@ export function invitationMail(i: InvitationMailInput): MailMessage {
     { lines: ['If you did not expect this message, ignore it: nothing happens until the link is used.'] },
   ]);
 }
+
+export type ReportMailInput = {
+  to: string; name: string; siteName: string; surveyName: string; publishedOn: string; sentBy: string;
+  surveyUrl: string; pdfUrl: string;
+  figures: [string, string][];
+};
+
+/** A published survey for a plant's readers: its headline figures and links; the report itself stays behind sign-in. */
+export function reportMail(r: ReportMailInput): MailMessage {
+  return render(r.to, `Survey results: ${r.surveyName}, ${r.siteName}`, `Hello ${r.name},`, [
+    { lines: [`${r.sentBy} has published the steam-trap survey ${r.surveyName} of ${r.siteName} (${r.publishedOn}).`] },
+    { rows: r.figures },
+    { lines: ['The links open after you sign in; the report is not attached, so it reaches only people who may read it.'] },
+    { link: { label: 'Open the survey', href: r.surveyUrl } },
+    { link: { label: 'Download the report (PDF)', href: r.pdfUrl } },
+  ]);
+}

@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
+import { EmailReport } from '@/components/outcomes/EmailReport';
 import { PublishSurvey } from '@/components/outcomes/PublishSurvey';
 import { ReportDownloads } from '@/components/reports/ReportDownloads';
 import { VerdictBar } from '@/components/outcomes/VerdictBar';
@@ -45,6 +46,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ siteId:
         </nav>
       </div>
       <ReportDownloads surveyId={surveyId} published={frozen} />
+      {frozen && may(actor, 'report.publish') && <EmailReport surveyId={surveyId} />}
       <p className="text-xs text-ink-faint" data-testid="figures-basis">
         {frozen ? `Published ${survey.publishedAt?.slice(0, 10)}: figures frozen with the settings of that day.` : 'Draft: figures follow the current cost settings.'}{' '}
         {figures.basis.convention}; {figures.basis.operatingHoursPerYear.toLocaleString('en-GB')} operating hours a year;{' '}
