@@ -103,5 +103,14 @@ describe('work orders in the browser', () => {
     await page.goto(`${baseUrl()}/sites/${own.siteId}/traps/${picks[0].trapId}`);
     await page.getByTestId('trap-work-orders').locator('[data-status=verified]').waitFor();
     await screenshot(page, 'trap-work-orders');
+
+    // The site overview counts the verified repair and what it saves a year.
+    await page.goto(`${baseUrl()}/sites/${own.siteId}`);
+    await page.getByTestId('trend-chart').waitFor();
+    const repairs = (await page.getByText(/verified by re-test/).first().textContent())!;
+    const verified = Number(/(\d+) verified by re-test/.exec(repairs)![1]);
+    expect(verified).toBeGreaterThanOrEqual(1);
+    expect(repairs).toMatch(/saved [\d.,]+ (kg|lb)\/h/);
+    await screenshot(page, 'site-overview-after-repair');
   });
 });
