@@ -19,10 +19,16 @@ export async function demoSites(admin: Client): Promise<{ own: SiteIds; other: S
     // One imported test per site, of a tag the register knows, in an upload of the admin's own
     // (the demo seed's uploads are the analyst's). Imported once per run: the same bytes again
     // would only be recognised as a duplicate.
-    const uploads = (await admin.get(`/api/sites/${siteId}/uploads`)).body.items as { id: number; createdBy: string; surveyId: number }[];
-    const mine = new Set(uploads.filter((u) => u.createdBy === 'Demo Admin' && u.surveyId === surveyId).map((u) => u.id));
     const tests = (await admin.get(`/api/sites/${siteId}/tests?surveyId=${surveyId}&trapId=${trapId}`)).body.items as { id: number; uploadId: number }[];
-    let test = tests.find((t) => mine.has(t.uploadId));
+    let test: { id: number; uploadId: number } | undefined;
+    for (const t of tests) {
+      // An earlier test file may have asked for the upload to be read again: wait until it is.
+      const detail = await settled(admin, t.uploadId, 60_000);
+      if (detail.createdBy === 'Demo Admin') {
+        test = (await admin.get(`/api/sites/${siteId}/tests?uploadId=${t.uploadId}&trapId=${trapId}`)).body.items[0];
+        if (test) break;
+      }
+    }
     if (!test) {
       const trapTag = (await admin.get(`/api/traps/${trapId}`)).body.tag;
       // Bytes of their own (a later day), so an earlier run's copy cannot make it a duplicate.
