@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { PlumeMark } from '@/components/PlumeMark';
 import { invitationForToken } from '@/lib/services/invitations';
 import { acceptInvitationAction } from './actions';
 
@@ -19,37 +18,28 @@ export default async function InvitationPage({ params, searchParams }: { params:
   const invitation = await invitationForToken(token);
   const refused = invitation.state !== 'pending' ? SAID[invitation.state] : null;
   return (
-    <main className="flex min-h-screen items-center justify-center bg-surface-sunken px-4">
-      <div className="w-full max-w-sm">
-        <div className="mb-6 flex items-center gap-2">
-          <PlumeMark className="h-8 w-8" />
-          <div>
-            <div className="text-lg font-semibold tracking-tight">Plumeward</div>
-            <div className="text-xs text-ink-soft">Steam-trap survey workbench</div>
-          </div>
-        </div>
-        <div className="panel p-6 shadow-sm" data-testid="invitation" data-state={invitation.state}>
-          {refused ? (
-            <>
-              <h1 className="mb-2 text-base font-semibold">{refused.title}</h1>
-              <p className="text-sm text-ink-soft">{refused.text}</p>
-              <p className="mt-4 text-sm"><a className="text-accent-700 hover:underline" href="/sign-in">Go to sign-in</a></p>
-            </>
-          ) : (
-            <>
-              <h1 className="mb-1 text-base font-semibold">Welcome, {invitation.name}</h1>
-              <p className="mb-4 text-sm text-ink-soft">You are invited as {invitation.role?.toLowerCase()} with {invitation.email}. Choose a password to finish; you then sign in with it.</p>
-              <form action={acceptInvitationAction} className="space-y-3">
-                <input type="hidden" name="token" value={token} />
-                <label className="block"><span className="field-label">Password (at least 10 characters)</span><input name="password" type="password" required minLength={10} autoComplete="new-password" className="field-input" /></label>
-                <label className="block"><span className="field-label">The same again</span><input name="confirm" type="password" required minLength={10} autoComplete="new-password" className="field-input" /></label>
-                {problem && <p role="alert" className="field-error">{problem}</p>}
-                <button type="submit" className="btn-primary w-full justify-center">Set password</button>
-              </form>
-            </>
-          )}
-        </div>
-      </div>
-    </main>
+    <>
+    <div className="panel p-6 shadow-sm" data-testid="invitation" data-state={invitation.state}>
+      {refused ? (
+        <>
+          <h1 className="mb-2 text-base font-semibold">{refused.title}</h1>
+          <p className="text-sm text-ink-soft">{refused.text}</p>
+          <p className="mt-4 text-sm"><a className="text-accent-700 hover:underline" href="/sign-in">Go to sign-in</a></p>
+        </>
+      ) : (
+        <>
+          <h1 className="mb-1 text-base font-semibold">Welcome, {invitation.name}</h1>
+          <p className="mb-4 text-sm text-ink-soft">You are invited as {invitation.role?.toLowerCase()} with {invitation.email}. Choose a password to finish; you then sign in with it.</p>
+          <form action={acceptInvitationAction} className="space-y-3">
+            <input type="hidden" name="token" value={token} />
+            <label className="block"><span className="field-label">Password (at least 10 characters)</span><input name="password" type="password" required minLength={10} autoComplete="new-password" className="field-input" /></label>
+            <label className="block"><span className="field-label">The same again</span><input name="confirm" type="password" required minLength={10} autoComplete="new-password" className="field-input" /></label>
+            {problem && <p role="alert" className="field-error">{problem}</p>}
+            <button type="submit" className="btn-primary w-full justify-center">Set password</button>
+          </form>
+        </>
+      )}
+    </div>
+    </>
   );
 }
