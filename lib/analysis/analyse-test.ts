@@ -63,6 +63,49 @@ function toFloat32(values: Float32Array | Float64Array | number[]): Float32Array
   return values instanceof Float32Array ? values : Float32Array.from(values);
 }
 
+type VerdictFacts = Parameters<typeof suggestVerdict>[0];
+
+/**
+ * The cheap half of a test's analysis: reference check, suggested verdict and steam loss, from
+ * the figures the series gave. analyseTest calls it; the pipeline calls it again when a
+ * reference reading of another file becomes known (lib/pipeline/settle.ts), so both agree.
+ */
+export function judgeTest(
+  measured: { meanDb: number } & Pick<VerdictFacts, 'cycles' | 'bands' | 'shares' | 'temperature'>,
+  trap: TrapFacts,
+  referenceMeanDb: number | null,
+  lineOutOfServiceNote: boolean,
+  params: AnalysisParams,
+): Pick<TestAnalysis, 'reference' | 'verdict' | 'loss' | 'lossNote'> {
+  const reference = checkReference(measured.meanDb, referenceMeanDb, params.reference.marginDb);
+  const verdict = suggestVerdict(
+    {
+      trapType: trap.type,
+      outOfService: { register: trap.outOfService, fieldNote: lineOutOfServiceNote },
+      cycles: measured.cycles,
+      bands: measured.bands,
+      shares: measured.shares,
+      temperature: measured.temperature,
+      reference,
+    },
+    params,
+  );
+  let loss: TestAnalysis['loss'] = null;
+  let lossNote: string | null = null;
+  if (verdict.lossMode) {
+    if (trap.pressureBarg === null) {
+      lossNote = 'no line pressure in the register, so the steam loss cannot be estimated';
+    } else {
+      const estimate = estimateSteamLoss(
+        { pressureBarg: trap.pressureBarg, orificeMm: trap.orificeMm, sizeDn: trap.sizeDn, lossMode: verdict.lossMode },
+        params,
+      );
+      loss = { ...estimate, cost: costOfLoss(estimate.tonnesPerYear, trap.pressureBarg, params) };
+    }
+  }
+  return { reference, verdict, loss, lossNote };
+}
+
 export function analyseTest(input: TestInput, overrides: ParamOverrides | AnalysisParams = {}): TestAnalysis {
   const params = resolveParams(overrides as ParamOverrides);
   const level = toFloat32(input.levelDb);
@@ -86,34 +129,10 @@ export function analyseTest(input: TestInput, overrides: ParamOverrides | Analys
 
   const temperatureSummary = summariseTemperature(input.temperatureC);
   const temperature = assessTemperature(temperatureSummary?.medianC ?? null, trap.pressureBarg, trap.type, params);
-  const reference = checkReference(statistics.mean, input.referenceMeanDb, params.reference.marginDb);
-
-  const verdict = suggestVerdict(
-    {
-      trapType: trap.type,
-      outOfService: { register: trap.outOfService, fieldNote: input.lineOutOfServiceNote ?? false },
-      cycles,
-      bands,
-      shares,
-      temperature,
-      reference,
-    },
-    params,
+  const { reference, verdict, loss, lossNote } = judgeTest(
+    { meanDb: statistics.mean, cycles, bands, shares, temperature },
+    trap, input.referenceMeanDb ?? null, input.lineOutOfServiceNote ?? false, params,
   );
-
-  let loss: TestAnalysis['loss'] = null;
-  let lossNote: string | null = null;
-  if (verdict.lossMode) {
-    if (trap.pressureBarg === null) {
-      lossNote = 'no line pressure in the register, so the steam loss cannot be estimated';
-    } else {
-      const estimate = estimateSteamLoss(
-        { pressureBarg: trap.pressureBarg, orificeMm: trap.orificeMm, sizeDn: trap.sizeDn, lossMode: verdict.lossMode },
-        params,
-      );
-      loss = { ...estimate, cost: costOfLoss(estimate.tonnesPerYear, trap.pressureBarg, params) };
-    }
-  }
 
   return {
     level: statistics,

@@ -6,22 +6,9 @@
 // with the reference mean in the first place (tests/lib/pipeline/settle.test.ts checks
 // that on every fixture and on synthetic tests, so the two cannot drift apart).
 
-import type { TestAnalysis, TrapFacts } from '@/lib/analysis/analyse-test';
-import type { AnalysisParams } from '@/lib/analysis/defaults';
-import { costOfLoss } from '@/lib/analysis/energy-cost';
-import { checkReference } from '@/lib/analysis/reference-check';
-import { estimateSteamLoss } from '@/lib/analysis/steam-loss';
-import { suggestVerdict, type SuggestedVerdict } from '@/lib/analysis/verdict';
+import { judgeTest, type TestAnalysis, type TrapFacts } from '@/lib/analysis/analyse-test';
 import type { AnalysedTest } from './analysed-test';
 import { pairReferences } from './pair-references';
-
-function lossFor(verdict: SuggestedVerdict, trap: TrapFacts, params: AnalysisParams): Pick<TestAnalysis, 'loss' | 'lossNote'> {
-  if (!verdict.lossMode) return { loss: null, lossNote: null };
-  const pressureBarg = trap.pressureBarg;
-  if (pressureBarg === null) return { loss: null, lossNote: 'no line pressure in the register, so the steam loss cannot be estimated' };
-  const estimate = estimateSteamLoss({ pressureBarg, orificeMm: trap.orificeMm, sizeDn: trap.sizeDn, lossMode: verdict.lossMode }, params);
-  return { loss: { ...estimate, cost: costOfLoss(estimate.tonnesPerYear, pressureBarg, params) }, lossNote: null };
-}
 
 /** The analysis with its reference check, verdict and loss recomputed for this reference reading. */
 export function settleAnalysis(
@@ -30,21 +17,11 @@ export function settleAnalysis(
   referenceMeanDb: number | null,
   lineOutOfServiceNote = false,
 ): TestAnalysis {
-  const params = analysis.params;
-  const reference = checkReference(analysis.level.mean, referenceMeanDb, params.reference.marginDb);
-  const verdict = suggestVerdict(
-    {
-      trapType: trap.type,
-      outOfService: { register: trap.outOfService, fieldNote: lineOutOfServiceNote },
-      cycles: analysis.cycles,
-      bands: analysis.bands,
-      shares: analysis.bands.shares,
-      temperature: analysis.temperature,
-      reference,
-    },
-    params,
+  const judged = judgeTest(
+    { meanDb: analysis.level.mean, cycles: analysis.cycles, bands: analysis.bands, shares: analysis.bands.shares, temperature: analysis.temperature },
+    trap, referenceMeanDb, lineOutOfServiceNote, analysis.params,
   );
-  return { ...analysis, reference, verdict, ...lossFor(verdict, trap, params) };
+  return { ...analysis, ...judged };
 }
 
 export interface SettleOptions {
