@@ -70,7 +70,7 @@ describe('analyseTest', () => {
   });
 });
 
-describe('speed', () => {
+describe('a long record', () => {
   // A day's worth of readings in one test: 2 M readings at 50 Hz, a disc trap cycling
   // every ~9 s with a slow drift and noise, and a temperature column.
   function bigTest(): TestInput {
@@ -88,20 +88,10 @@ describe('speed', () => {
     return { timebase: regularTimebase(rate), levelDb: level, temperatureC: temperature, trap: { type: 'thermodynamic_disc', pressureBarg: 10 } };
   }
 
-  it('2 M readings in well under 150 ms', () => {
-    const input = bigTest();
-    analyseTest(input); // warm-up: let the JIT compile the loops
-    const times: number[] = [];
-    let result = analyseTest(input);
-    for (let k = 0; k < 3; k++) {
-      const start = performance.now();
-      result = analyseTest(input);
-      times.push(performance.now() - start);
-    }
-    times.sort((a, b) => a - b);
-    console.info(`analyseTest, 2 M readings: ${times.map((t) => t.toFixed(0)).join(', ')} ms`);
+  // Its speed is measured by `npm run bench:analysis` (ns per sample), not by a timed test.
+  it('reads 2 M readings whole: every open interval of a long cycling record', () => {
+    const result = analyseTest(bigTest());
     expect(result.cycles.openIntervals.length).toBe(Math.ceil(40_000 / 9.1));
     expect(result.verdict.code).toBe('working');
-    expect(times[0]).toBeLessThan(150);
   });
 });
