@@ -3,11 +3,11 @@
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { createToken, revokeToken } from '@/lib/services/api-tokens';
-import { createSite, updateSite } from '@/lib/services/sites';
+import { createSite } from '@/lib/services/sites';
 import { createUser, updateUser } from '@/lib/services/users';
 import { apiTokenInputSchema } from '@/lib/validation/api-token';
 import { idSchema } from '@/lib/validation/common';
-import { siteInputSchema, siteUpdateSchema } from '@/lib/validation/site';
+import { siteInputSchema } from '@/lib/validation/site';
 import { userInputSchema, userUpdateSchema } from '@/lib/validation/user';
 import { defineAction } from './define-action';
 
@@ -18,11 +18,6 @@ export const createSiteAction = defineAction(
     revalidatePath('/settings/sites');
     return site;
   },
-);
-
-export const updateSiteAction = defineAction(
-  { name: 'updateSite', permission: 'site.manage', input: z.object({ siteId: idSchema, site: siteUpdateSchema }), site: (i) => i.siteId },
-  async ({ actor, input }) => updateSite(actor, input.siteId, input.site),
 );
 
 export const createUserAction = defineAction(

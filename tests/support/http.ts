@@ -29,6 +29,8 @@ export class Client {
     if (this.bearer) h.authorization = `Bearer ${this.bearer}`;
     let payload: BodyInit | undefined;
     if (body instanceof URLSearchParams || body instanceof FormData) payload = body;
+    // As it stands: fetch sends a string as text/plain;charset=UTF-8, as a browser's server-action call does.
+    else if (typeof body === 'string') payload = body;
     else if (body !== undefined) {
       payload = JSON.stringify(body);
       h['content-type'] = 'application/json';
