@@ -3,8 +3,10 @@ const securityHeaders = [
   { key: 'X-Content-Type-Options', value: 'nosniff' },
   { key: 'Referrer-Policy', value: 'same-origin' },
   { key: 'X-Frame-Options', value: 'DENY' },
-  { key: 'Content-Security-Policy', value: "frame-ancestors 'none'; base-uri 'self'; form-action 'self'; object-src 'none'" },
 ];
+// Pages get their policy, with a per-request nonce, from proxy.ts. API responses are data (JSON,
+// reports, field-note photos of whatever type was uploaded): opened directly, nothing in them may run.
+const apiPolicy = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'; sandbox";
 
 const nextConfig = {
   // NEXT_DIST_DIR lets two builds live side by side (say, a developer's and a test run's).
@@ -16,7 +18,10 @@ const nextConfig = {
   typescript: { ignoreBuildErrors: process.env.PLUMEWARD_SKIP_BUILD_TYPECHECK === '1' },
   typedRoutes: false,
   async headers() {
-    return [{ source: '/:path*', headers: securityHeaders }];
+    return [
+      { source: '/:path*', headers: securityHeaders },
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: apiPolicy }] },
+    ];
   },
 };
 

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import localFont from 'next/font/local';
+import { connection } from 'next/server';
 import './globals.css';
 
 const inter = localFont({
@@ -13,7 +14,10 @@ export const metadata: Metadata = {
   description: 'Steam-trap survey workbench',
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request, so Next can put proxy.ts's fresh CSP nonce on its scripts
+  // (a page prerendered at build time, like the 404, would carry none and be blocked).
+  await connection();
   return (
     <html lang="en" className={inter.variable}>
       <body className="min-h-screen font-sans">{children}</body>

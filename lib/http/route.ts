@@ -26,13 +26,21 @@ type SiteResolver<S extends RouteSpec> = (input: {
 const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
 // A cookie-authenticated write must come from our own pages: browsers send Origin on every
-// cross-site POST, so a foreign Origin is a forged form or script. Bearer tokens are not ambient.
+// cross-site POST, so a foreign Origin is a forged form or script, and "null" (a sandboxed frame,
+// a redirect across sites) names no page of ours. Sec-Fetch-Site is sent by every current browser
+// and cannot be set by a page's script: "cross-site" or "same-site" (a sibling host, which gets our
+// cookies too) is refused even where Origin was stripped. Bearer tokens are not ambient: scripts
+// with a token send neither header and are not checked.
+const FOREIGN_FETCH_SITES = new Set(['cross-site', 'same-site']);
+
 function assertSameOrigin(request: Request, actor: Actor) {
   if (actor.via !== 'session' || !WRITE_METHODS.has(request.method)) return;
+  const refused = new AppError('forbidden', 'Cross-site request refused.');
+  if (FOREIGN_FETCH_SITES.has(request.headers.get('sec-fetch-site') ?? '')) throw refused;
   const origin = request.headers.get('origin');
   if (!origin) return;
   const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host');
-  if (new URL(origin).host !== host) throw new AppError('forbidden', 'Cross-site request refused.');
+  if (!URL.canParse(origin) || new URL(origin).host !== host) throw refused;
 }
 
 function parseOr<T extends z.ZodType>(schema: T, value: unknown, onError: (e: z.ZodError) => AppError): z.output<T> {
