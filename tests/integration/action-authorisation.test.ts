@@ -1,7 +1,8 @@
 // Every server action × every role × own site / other site / no session, called over HTTP as the
 // browser calls it, with the exact outcome. Generated from ACTION_REGISTRY (defineAction) and the
 // build's server reference manifest: an action without a sample, or one that is not made with
-// defineAction, fails. Plus: a cross-site post to any action is refused before it runs.
+// defineAction, fails. Plus: account changes apply on the next call, and a cross-site post to
+// any action is refused before it runs.
 import fs from 'node:fs';
 import path from 'node:path';
 import sqlite3 from 'sqlite3';
@@ -141,6 +142,28 @@ describe('server action authorisation, action by action', () => {
     // Every id naming the record (the top-level …Id fields) points nowhere.
     const missing = Object.fromEntries(Object.entries(sample).map(([k, v]) => [k, /Id$/.test(k) ? 999_999 : v]));
     await expectOutcome('admin', action, sites.own, 'not_found', missing);
+  });
+
+  // The wrapper re-reads the user on every call (lib/auth/actor.ts), as routes do (sign-in.test.ts).
+  describe('account changes take effect on the next action call', () => {
+    const createArea = () => callable.find((a) => a.name === 'createArea')!;
+
+    it('a disabled user is unauthenticated', async () => {
+      const user = await newUser(clients.admin, 'analyst', [sites.own.siteId]);
+      expect((await call(user.client, createArea(), await ACTION_SAMPLES.createArea(sites.own, ctx))).result).toMatchObject({ ok: true });
+      expect((await clients.admin.patch(`/api/users/${user.id}`, { status: 'disabled' })).status).toBe(200);
+      const reply = await call(user.client, createArea(), await ACTION_SAMPLES.createArea(sites.own, ctx));
+      expect(reply.result).toMatchObject({ ok: false, error: { code: 'unauthenticated' } });
+    });
+
+    it('a changed role and changed sites apply at once', async () => {
+      const user = await newUser(clients.admin, 'viewer', [sites.own.siteId]);
+      const attempt = async (ids: SiteIds) => (await call(user.client, createArea(), await ACTION_SAMPLES.createArea(ids, ctx))).result;
+      expect(await attempt(sites.own)).toMatchObject({ ok: false, error: { code: 'forbidden' } });
+      expect((await clients.admin.patch(`/api/users/${user.id}`, { role: 'analyst', siteIds: [sites.other.siteId] })).status).toBe(200);
+      expect(await attempt(sites.other)).toMatchObject({ ok: true });
+      expect(await attempt(sites.own)).toMatchObject({ ok: false, error: { code: 'not_found' } });
+    });
   });
 
   describe('cross-site posts', () => {
