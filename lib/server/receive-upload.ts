@@ -2,10 +2,11 @@ import 'server-only';
 import formidable, { errors as formidableErrors } from 'formidable';
 import fs from 'node:fs';
 import { Readable } from 'node:stream';
+import { finished } from 'node:stream/promises';
 import type { ReadableStream as WebReadableStream } from 'node:stream/web';
-import { AppError } from '@/lib/http/errors';
+import { AppError, fileStorageFault, type StorageFault } from '@/lib/http/errors';
 import { uploadLimits } from './upload-limits';
-import { adopt, incomingDir } from './upload-store';
+import { adopt, incomingDir, storeRoot } from './upload-store';
 
 export type ReceivedFile = { name: string; size: number; sha256: string; mimeType: string | null };
 
@@ -14,15 +15,26 @@ const MB = 1024 * 1024;
 /**
  * Streams a multipart body to disk with formidable (never into memory), hashing each part as it
  * arrives, then adopts each file into the store under its SHA-256. Limits answer 413 with what
- * the limit is; nothing of a refused upload is kept.
+ * the limit is; a store that is full answers 507 and one that cannot be written 503. Nothing of
+ * a refused upload is kept.
  */
 export async function receiveUpload(request: Request): Promise<ReceivedFile[]> {
   if (!request.body || !request.headers.get('content-type')?.startsWith('multipart/form-data')) {
     throw new AppError('invalid', 'Send the files as multipart/form-data, one part per file (field name "files").');
   }
   const limits = uploadLimits();
+  let uploadDir: string;
+  try {
+    uploadDir = incomingDir();
+  } catch (err) {
+    throw storageRefusal(err) ?? err;
+  }
+  // Each part is written by a stream of ours: formidable 3 reports a part as received even when
+  // writing it failed (a disk that filled, or a folder that turned read-only, after its last
+  // chunk arrived), which would store a truncated file under the hash of the whole one.
+  const writes = new Map<string, fs.WriteStream>();
   const form = formidable({
-    uploadDir: incomingDir(),
+    uploadDir,
     maxFileSize: limits.maxFileBytes,
     maxTotalFileSize: limits.maxTotalBytes,
     maxFiles: limits.maxFiles,
@@ -30,6 +42,12 @@ export async function receiveUpload(request: Request): Promise<ReceivedFile[]> {
     allowEmptyFiles: true, // an empty file is kept and reported by the import, not refused here
     minFileSize: 0,
     hashAlgorithm: 'sha256',
+    fileWriteStreamHandler: (file) => {
+      const filepath = (file as unknown as { filepath: string }).filepath;
+      const stream = fs.createWriteStream(filepath);
+      writes.set(filepath, stream);
+      return stream;
+    },
   });
   const stream = Object.assign(Readable.fromWeb(request.body as WebReadableStream), {
     headers: Object.fromEntries(request.headers),
@@ -37,23 +55,57 @@ export async function receiveUpload(request: Request): Promise<ReceivedFile[]> {
   let files: formidable.Files;
   try {
     [, files] = await form.parse(stream as never);
+    await Promise.all([...writes.values()].map((w) => finished(w)));
   } catch (err) {
+    // Every part written so far, whole or not, goes before we answer.
+    await Promise.all([...writes.values()].map((w) => finished(w.destroy()).catch(() => undefined)));
+    await removeAll([...writes.keys()]);
+    // formidable stops reading at its error, leaving the request paused when a disk write failed;
+    // reading the rest (and dropping it) lets the client finish sending and see our answer.
+    stream.resume();
     throw describeRefusal(err, limits);
   }
   const parts = Object.values(files).flat().filter((f): f is formidable.File => !!f);
   if (parts.length === 0) throw new AppError('invalid', 'The upload holds no file.');
   const received: ReceivedFile[] = [];
-  for (const part of parts) {
-    const sha256 = String(part.hash);
-    await adopt(part.filepath, sha256);
-    received.push({ name: part.originalFilename || 'unnamed', size: part.size, sha256, mimeType: part.mimetype ?? null });
+  try {
+    for (const part of parts) {
+      const sha256 = String(part.hash);
+      await adopt(part.filepath, sha256);
+      received.push({ name: part.originalFilename || 'unnamed', size: part.size, sha256, mimeType: part.mimetype ?? null });
+    }
+  } catch (err) {
+    // Parts already adopted stay: they are whole and named by their hash (the same bytes sent
+    // again are found there), and another upload of the same bytes may be relying on them.
+    await removeAll([...writes.keys()]);
+    throw storageRefusal(err) ?? err;
   }
   return received;
 }
 
+function removeAll(paths: string[]) {
+  return Promise.all(paths.map((p) => fs.promises.rm(p, { force: true }).catch(() => undefined)));
+}
+
+const STORAGE_REFUSALS: Record<StorageFault, () => AppError> = {
+  full: () => new AppError('storage_full',
+    "The server's upload store is full: its disk has no space left, so nothing of this upload was stored. Free space on the store's disk (or ask your administrator to), then send the files again."),
+  unwritable: () => new AppError('storage_unwritable',
+    "The server cannot write to its upload store (its data directory is read-only or not writable), so nothing of this upload was stored. Your administrator must make the store writable; then send the files again."),
+};
+
+/** A full or unwritable store as the user is told it (the cause, with the store's path, is logged). */
+function storageRefusal(err: unknown): AppError | null {
+  const fault = fileStorageFault(err);
+  if (!fault) return null;
+  console.error(`Upload refused: the upload store at ${storeRoot()} is ${fault === 'full' ? 'full' : 'not writable'}`, err);
+  return STORAGE_REFUSALS[fault]();
+}
+
 function describeRefusal(err: unknown, limits: ReturnType<typeof uploadLimits>): AppError {
+  const storage = storageRefusal(err);
+  if (storage) return storage;
   const code = (err as { code?: number }).code;
-  // formidable deletes the partial files it wrote for the refused request.
   if (code === formidableErrors.biggerThanTotalMaxFileSize) {
     return new AppError('too_large', `The upload is larger than ${limits.maxTotalBytes / MB} MB in total. Send the files in smaller batches.`);
   }

@@ -10,10 +10,26 @@ export function storeRoot(): string {
   return process.env.PLUMEWARD_STORE ?? path.join(path.dirname(databasePath()), 'uploads');
 }
 
+/**
+ * `mkdir -p` that throws the real reason it could not: Node's recursive mkdir answers ENOENT when
+ * a read-only or unwritable folder stops it, so the first missing folder is made alone to learn why.
+ */
+function makeDirs(dir: string) {
+  try {
+    fs.mkdirSync(dir, { recursive: true });
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code !== 'ENOENT') throw err;
+    let missing = dir;
+    while (!fs.existsSync(path.dirname(missing))) missing = path.dirname(missing);
+    fs.mkdirSync(missing);
+    throw err;
+  }
+}
+
 /** Where incoming parts stream to before they are hashed and adopted (same disk, so moving is a rename). */
 export function incomingDir(): string {
   const dir = path.join(storeRoot(), 'incoming');
-  fs.mkdirSync(dir, { recursive: true });
+  makeDirs(dir);
   return dir;
 }
 
@@ -25,7 +41,7 @@ export function storedPath(sha256: string): string {
 /** Moves a received temporary file into the store under its hash; a copy already stored wins. */
 export async function adopt(tempPath: string, sha256: string): Promise<void> {
   const target = storedPath(sha256);
-  await fs.promises.mkdir(path.dirname(target), { recursive: true });
+  makeDirs(path.dirname(target));
   if (fs.existsSync(target)) {
     await fs.promises.rm(tempPath, { force: true });
     return;

@@ -5,7 +5,7 @@ import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 
-const root = path.resolve(__dirname, '../..');
+export const root = path.resolve(__dirname, '../..');
 
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -28,15 +28,26 @@ export function runDb(command: string, dbPath: string) {
 
 export type OwnServer = { baseUrl: string; dbPath: string; process: ChildProcess; log: () => string };
 
+/** The command that serves the built app on a port over a database, and its environment. */
+export function nextStart(dbPath: string, port: number) {
+  const baseUrl = `http://127.0.0.1:${port}`;
+  return {
+    baseUrl,
+    command: process.execPath,
+    args: [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-p', String(port), '-H', '127.0.0.1'],
+    env: { ...process.env, PLUMEWARD_DB: dbPath, NEXTAUTH_URL: baseUrl, NEXTAUTH_SECRET: 'own-server-test-secret', NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1' } as NodeJS.ProcessEnv,
+  };
+}
+
 /** Serves the built app on a free port over the given database; resolves once it answers. */
 export async function startServer(dbPath: string, port?: number): Promise<OwnServer> {
-  const p = port ?? (await freePort());
-  const baseUrl = `http://127.0.0.1:${p}`;
+  const { baseUrl, command, args, env } = nextStart(dbPath, port ?? (await freePort()));
+  return whenAnswering(spawn(command, args, { cwd: root, env }), baseUrl, dbPath);
+}
+
+/** Resolves once a just-spawned app server answers at baseUrl; throws with its output if it exits or takes a minute. */
+export async function whenAnswering(child: ChildProcess, baseUrl: string, dbPath: string): Promise<OwnServer> {
   let output = '';
-  const child = spawn(process.execPath, [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-p', String(p), '-H', '127.0.0.1'], {
-    cwd: root,
-    env: { ...process.env, PLUMEWARD_DB: dbPath, NEXTAUTH_URL: baseUrl, NEXTAUTH_SECRET: 'own-server-test-secret', NODE_ENV: 'production', NEXT_TELEMETRY_DISABLED: '1' },
-  });
   child.stdout?.on('data', (d) => (output += d));
   child.stderr?.on('data', (d) => (output += d));
   const deadline = Date.now() + 60_000;
