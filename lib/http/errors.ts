@@ -38,7 +38,8 @@ export const notFound = (what = 'record') => new AppError('not_found', `No such 
 export type StorageFault = 'full' | 'unwritable';
 
 const FS_FAULTS: Record<string, StorageFault> = { ENOSPC: 'full', EDQUOT: 'full', EROFS: 'unwritable', EACCES: 'unwritable', EPERM: 'unwritable' };
-const SQLITE_FAULTS: Record<string, StorageFault> = { SQLITE_FULL: 'full', SQLITE_READONLY: 'unwritable' };
+// SQLite's result codes, and PostgreSQL's SQLSTATEs disk_full and read_only_sql_transaction.
+const DATABASE_FAULTS: Record<string, StorageFault> = { SQLITE_FULL: 'full', SQLITE_READONLY: 'unwritable', 53100: 'full', 25006: 'unwritable' };
 
 /** The error's code, or its cause's (Sequelize keeps the driver's error as `parent`). */
 function codesOf(err: unknown): string[] {
@@ -57,7 +58,7 @@ export function fileStorageFault(err: unknown): StorageFault | null {
 
 /** Whether a database error means the database's disk is full or it cannot be written. */
 export function databaseStorageFault(err: unknown): StorageFault | null {
-  return codesOf(err).map((c) => SQLITE_FAULTS[c]).find(Boolean) ?? null;
+  return codesOf(err).map((c) => DATABASE_FAULTS[c]).find(Boolean) ?? null;
 }
 
 /** What a user is told when a write was refused by the database's disk; nothing of the change was kept. */

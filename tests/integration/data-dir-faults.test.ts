@@ -1,7 +1,9 @@
 // The upload store on a disk that fills up mid-file, or that turns read-only: the upload is
 // refused with a status and message saying so, nothing of it stays on disk or in the database,
-// and the same upload goes through once the disk is fixed. The store is a real tmpfs in the
-// server's own mount namespace (tests/support/confined-server.ts), not a mocked file system.
+// and the same upload goes through once the disk is fixed. The database on a disk that fills:
+// the write is refused (507), or the file being imported is rolled back, and the database stays
+// sound. Each disk is a real tmpfs in the server's own mount namespace
+// (tests/support/confined-server.ts), not a mocked file system.
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -9,7 +11,7 @@ import sqlite3 from 'sqlite3';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { kibOnTmpfs, startConfinedServer, type ConfinedServer } from '../support/confined-server';
 import { Client, DEMO, signedIn } from '../support/http';
-import { runDb, tempDb } from '../support/own-server';
+import { root, runDb, tempDb } from '../support/own-server';
 import { modelAFileFor, settled, upload, type FilePart } from '../support/uploads';
 
 const STORE_FULL = "The server's upload store is full: its disk has no space left, so nothing of this upload was stored. "
@@ -31,6 +33,18 @@ async function snapshot(dbPath: string): Promise<Record<string, { rows: number; 
     out[name] = { rows: rows.length, sha256: createHash('sha256').update(JSON.stringify(rows)).digest('hex') };
   }
   return out;
+}
+
+/** A model A test of `rows` readings at 10 Hz: long enough that its stored series is `rows` × 8 bytes. */
+function longModelAFile(tag: string, rows: number): FilePart {
+  const [head, ...lines] = (modelAFileFor(tag).bytes as string).replace(/^\uFEFF/, '').trim().split('\n');
+  const t0 = Date.parse('2025-04-08T09:20:10.000Z');
+  const out = [`\uFEFF${head}`];
+  for (let i = 0; i < rows; i++) {
+    const [, , level, temperature] = lines[i % lines.length].split(',');
+    out.push(`${new Date(t0 + i * 100).toISOString()},${tag},${level},${temperature}`);
+  }
+  return { name: `A_${tag}_long.csv`, bytes: `${out.join('\n')}\n` };
 }
 
 const sha256Of = (f: FilePart) => createHash('sha256').update(f.bytes).digest('hex');
@@ -108,6 +122,16 @@ describe('an upload store that is full or read-only', () => {
     const dbBefore = await snapshot(dbPath);
     const storeBefore = server.files(store);
 
+    // A large file runs out of room while the request is still arriving; the rest of it is read
+    // and dropped so the client gets the answer.
+    const large = longModelAFile(tags[3], 30_000);
+    expect(Buffer.byteLength(large.bytes)).toBeGreaterThan(1024 * 1024);
+    const tooLarge = await upload(analyst, surveyId, [large]);
+    expect(tooLarge.status).toBe(507);
+    expect(tooLarge.body.error).toEqual({ code: 'storage_full', message: STORE_FULL });
+    expect(server.files(store)).toEqual(storeBefore);
+    expect(server.space(store).free).toBe(room);
+    // Two small files: the second fills the disk as it is written, with little or nothing of the request left to arrive.
     const refused = await upload(analyst, surveyId, files);
     expect(refused.status).toBe(507);
     expect(refused.body.error).toEqual({ code: 'storage_full', message: STORE_FULL });
@@ -125,5 +149,83 @@ describe('an upload store that is full or read-only', () => {
       .toEqual(files.map((f) => [f.name, 'processed', 1]));
     const stored = server.files(store);
     for (const [i, f] of files.entries()) expect(stored.get(storedAs(f))).toEqual({ size: sizes[i], sha256: sha256Of(f) });
+  });
+});
+
+const READ_SQL = `const [sqlite3, file, sql] = process.argv.slice(1);
+const db = new (require(sqlite3).Database)(file, require(sqlite3).OPEN_READONLY, (err) => { if (err) throw err; });
+db.all(sql, (err, rows) => { if (err) throw err; process.stdout.write(JSON.stringify(rows)); db.close(); });`;
+
+const DATABASE_FULL = "The server's database is full: its disk has no space left, so this change was not saved. "
+  + 'Free space on the data disk (or ask your administrator to), then try again.';
+
+describe('a database whose disk fills up', () => {
+  let server: ConfinedServer;
+  let dbDisk: string; // a tmpfs holding the database, as the server sees it
+  let live: string; // the database file on it
+  let analyst: Client;
+  let siteId: number;
+  let surveyId: number;
+  let tag: string;
+  const filler = () => path.join(dbDisk, 'filler');
+  /** Fills the database's disk until `room` bytes are left. */
+  const leave = (room: number) => {
+    server.inside('fallocate', '-l', String(server.space(dbDisk).free - room), filler());
+    expect(server.space(dbDisk).free).toBe(room);
+  };
+  // Read where the server sees the file: SQLite resolves /proc/<pid>/root back to the host's path.
+  const db = (sql: string): unknown[] => JSON.parse(server.inside(process.execPath, '-e', READ_SQL, path.join(root, 'node_modules/sqlite3'), live, sql));
+
+  beforeAll(async () => {
+    const seeded = tempDb('db-full');
+    runDb('migrate', seeded);
+    runDb('seed', seeded);
+    dbDisk = path.join(path.dirname(seeded), 'db-disk');
+    live = path.join(dbDisk, 'plumeward.sqlite');
+    fs.mkdirSync(dbDisk);
+    server = await startConfinedServer(live, [{ dir: dbDisk, sizeKb: Math.ceil(fs.statSync(seeded).size / 1024) + 16 * 1024, copyFrom: seeded }],
+      { PLUMEWARD_STORE: path.join(path.dirname(seeded), 'uploads') });
+    analyst = await signedIn(DEMO.analyst.email, DEMO.analyst.password, server.baseUrl);
+    siteId = (await analyst.get('/api/sites')).body.items.find((s: { code: string }) => s.code === 'FV').id;
+    surveyId = (await analyst.post(`/api/sites/${siteId}/surveys`, { name: 'Database disk', startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' })).body.id;
+    tag = (await analyst.get(`/api/sites/${siteId}/traps?status=in_service&pageSize=1`)).body.items[0].tag;
+  });
+  afterEach(() => {
+    server?.inside('rm', '-f', filler());
+  });
+  afterAll(async () => {
+    await server?.stop();
+  });
+
+  it('answers a write with 507 when the database cannot grow, saves nothing of it, and stays sound', async () => {
+    const before = db('SELECT COUNT(*) AS n FROM surveys');
+    leave(0);
+    const refused = await analyst.post(`/api/sites/${siteId}/surveys`, { name: 'No room', startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' });
+    expect(refused.status).toBe(507);
+    expect(refused.body.error).toEqual({ code: 'storage_full', message: DATABASE_FULL });
+    expect(db('SELECT COUNT(*) AS n FROM surveys')).toEqual(before);
+    expect(db('PRAGMA integrity_check')).toEqual([{ integrity_check: 'ok' }]);
+
+    server.inside('rm', filler());
+    const taken = await analyst.post(`/api/sites/${siteId}/surveys`, { name: 'Room again', startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' });
+    expect(taken.status).toBe(201);
+  });
+
+  it('rolls back the file whose import fills the disk, marks the upload failed, and leaves the database sound', async () => {
+    // 100,000 readings: a series of 800 KB, where the disk has 256 KB left (the upload's own rows fit).
+    const file = longModelAFile(tag, 100_000);
+    leave(256 * 1024);
+    const sent = await upload(analyst, surveyId, [file]);
+    expect(sent.status).toBe(201);
+    const done = await settled(analyst, sent.body.id, 60_000);
+    expect(done.status).toBe('failed');
+    expect(done.error).toBeTruthy();
+    const [row] = done.files as { status: string; testCount: number }[];
+    expect(row.status).not.toBe('processed');
+    expect(row.testCount).toBe(0);
+    expect(db(`SELECT COUNT(*) AS n FROM tests WHERE upload_id = ${sent.body.id}`)).toEqual([{ n: 0 }]);
+    expect(db(`SELECT COUNT(*) AS n FROM test_series s JOIN tests t ON t.id = s.test_id WHERE t.upload_id = ${sent.body.id}`)).toEqual([{ n: 0 }]);
+    expect(db('PRAGMA integrity_check')).toEqual([{ integrity_check: 'ok' }]);
+    expect(server.log(), 'the import was stopped by the full disk').toMatch(new RegExp(`Upload ${sent.body.id} failed[\\s\\S]*SQLITE_FULL`));
   });
 });
