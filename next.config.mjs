@@ -5,8 +5,9 @@ const securityHeaders = [
   { key: 'X-Frame-Options', value: 'DENY' },
 ];
 // Pages get their policy, with a per-request nonce, from proxy.ts. API responses are data (JSON,
-// reports, field-note photos of whatever type was uploaded): opened directly, nothing in them may run.
-const apiPolicy = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'; sandbox";
+// reports, field-note photos): opened directly, nothing in them may run. Inline style stays, for the
+// page Chromium itself wraps round an image opened on its own (it centres it with inline styles).
+const apiPolicy = "default-src 'none'; style-src 'unsafe-inline'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'; sandbox";
 
 const nextConfig = {
   // NEXT_DIST_DIR lets two builds live side by side (say, a developer's and a test run's).

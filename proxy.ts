@@ -11,7 +11,8 @@ function pagePolicy(nonce: string, development = false): string {
     // 'strict-dynamic': the nonced bootstrap may load the chunks it needs; host lists and inline
     // handlers are ignored. React's development build needs eval for its error stacks.
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${development ? " 'unsafe-eval'" : ''}`,
-    `style-src 'self' 'nonce-${nonce}'`,
+    // In development Next injects styles without the nonce (the guide above), so they go inline.
+    `style-src 'self' ${development ? "'unsafe-inline'" : `'nonce-${nonce}'`}`,
     // Bars and swatches carry their width or colour in a style attribute (React escapes the value);
     // a <style> element still needs the nonce.
     "style-src-attr 'unsafe-inline'",

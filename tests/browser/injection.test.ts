@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { expectNoCspViolations, launch, signInThroughPage } from '../support/browser';
 import { signInAdmin } from '../support/fixtures';
 import { baseUrl, DEMO } from '../support/http';
+import { photoForm, TINY_PNG } from '../integration/samples/field-notes';
 
 declare global {
   interface Window { __plumewardPwned?: string[] }
@@ -17,6 +18,7 @@ const PAYLOAD = {
   area: `</script><script>(window.__plumewardPwned ||= []).push('area');alert('area')</script>`,
   survey: `"><svg onload="(window.__plumewardPwned ||= []).push('survey');alert('survey')"></svg>`,
   location: `<iframe srcdoc="<script>parent.alert('location')</script>"></iframe>{{7*7}}`,
+  note: `<img src=x onerror="(window.__plumewardPwned ||= []).push('note')"> outlet side`,
 };
 
 /** Elements a payload would have made, had it been parsed as markup. */
@@ -27,6 +29,7 @@ describe('script injection through names', () => {
   let siteId: number;
   let surveyId: number;
   let trapId: number;
+  let photoUrl: string;
   const dialogs: string[] = [];
 
   beforeAll(async () => {
@@ -46,6 +49,9 @@ describe('script injection through names', () => {
     const survey = await admin.post(`/api/sites/${siteId}/surveys`, { name: PAYLOAD.survey, startsOn: '2026-05-01', endsOn: '2026-05-31', status: 'in_progress' });
     expect(survey.status, JSON.stringify(survey.body)).toBe(201);
     surveyId = survey.body.id;
+    const note = await admin.request('POST', `/api/surveys/${surveyId}/traps/${trapId}/field-notes/photo`, photoForm(TINY_PNG, 'outlet.png', { text: PAYLOAD.note }));
+    expect(note.status, JSON.stringify(note.body)).toBe(201);
+    photoUrl = note.body.photo.url;
     ({ context } = await launch());
   });
   afterAll(async () => {
@@ -80,7 +86,12 @@ describe('script injection through names', () => {
     await expectLiteral(page, '/', ['site']);
     await expectLiteral(page, `/sites/${siteId}`, ['site', 'survey']);
     await expectLiteral(page, `/sites/${siteId}/traps`, ['site', 'area', 'location']);
-    await expectLiteral(page, `/sites/${siteId}/traps/${trapId}`, ['site', 'area', 'location']);
+    await expectLiteral(page, `/sites/${siteId}/traps/${trapId}`, ['site', 'area', 'location', 'note']);
+    // The note's photo, from our own API, is drawn under the page policy (img-src 'self').
+    const photo = page.locator(`img[src="${photoUrl}"]`);
+    await photo.scrollIntoViewIfNeeded();
+    await expect.poll(() => photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(1);
+    expect(await photo.getAttribute('alt')).toBe(`Photo of XS-001: ${PAYLOAD.note}`);
     await expectLiteral(page, `/sites/${siteId}/traps/${trapId}/edit`, ['site']);
     await expectLiteral(page, `/sites/${siteId}/areas`, ['site', 'area']);
     await expectLiteral(page, `/sites/${siteId}/surveys`, ['site', 'survey']);
@@ -91,6 +102,10 @@ describe('script injection through names', () => {
     // The edit form holds the location as the input's value, not as markup.
     await page.goto(`${baseUrl()}/sites/${siteId}/traps/${trapId}/edit`);
     expect(await page.getByLabel('Location').inputValue()).toBe(PAYLOAD.location);
+
+    // Opened on its own, as the thumbnail's link does, under the API's policy (sandbox, nothing runs).
+    await page.goto(`${baseUrl()}${photoUrl}`);
+    expect(await page.evaluate(() => (document.querySelector('img') as HTMLImageElement | null)?.naturalWidth)).toBe(1);
 
     expect(dialogs).toEqual([]);
     expectNoCspViolations(page);

@@ -22,7 +22,7 @@ const pagePolicy = (nonce: string) =>
   `default-src 'self'; script-src 'self' 'nonce-${nonce}' 'strict-dynamic'; style-src 'self' 'nonce-${nonce}'; style-src-attr 'unsafe-inline'; ` +
   "img-src 'self'; font-src 'self'; connect-src 'self'; worker-src 'self'; object-src 'none'; frame-src 'none'; base-uri 'none'; " +
   "form-action 'self'; frame-ancestors 'none'";
-const API_POLICY = "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'; sandbox";
+const API_POLICY = "default-src 'none'; style-src 'unsafe-inline'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'; sandbox";
 
 function expectCommonHeaders(headers: Headers) {
   expect(headers.get('x-content-type-options')).toBe('nosniff');
