@@ -50,32 +50,46 @@ export interface SuggestedMapping {
   referenceLink: FieldSuggestion<ReferenceLink>;
 }
 
-export interface LayoutDetection {
+/**
+ * The shape of a file's layout, read from its first lines: encoding, delimiter, preamble,
+ * header and units row, and the fingerprint they make. Enough to recognise a layout a
+ * profile already reads — the import's usual case, so it is kept cheap: the first
+ * SHAPE_SAMPLE_BYTES and SHAPE_SAMPLE_LINES. `detectLayout` starts from the same shape, so
+ * both always give a file the same fingerprint.
+ */
+export interface LayoutShape {
   /** False when the file cannot be read as a meter export at all (see problems). */
   ok: boolean;
   encoding: EncodingGuess | null;
   delimiter: Delimiter;
   delimiterConfidence: number;
-  decimalMark: '.' | ',';
-  decimalMarkConfidence: number;
   preamble: Preamble;
   /** 1-based line of the header row; null when the file has none. */
   headerLine: number | null;
   header: string[];
   unitsRow: string[] | null;
+  /** 0-based index (after any byte-order mark) of the line the data rows start on. */
+  dataStartIndex: number;
+  fingerprint: string;
+  problems: ImportProblem[];
+}
+
+/** The full detection: the file's shape (below), and what each column holds. */
+export interface LayoutDetection extends LayoutShape {
+  decimalMark: '.' | ',';
+  decimalMarkConfidence: number;
   columns: DetectedColumn[];
   suggestedMapping: SuggestedMapping | null;
   /** A complete profile from the suggestion, when time and level were found. */
   suggestedProfile: InstrumentProfile | null;
   /** The lowest confidence among the required fields. */
   confidence: number;
-  fingerprint: string;
   preview: { line: number; fields: string[] }[];
-  problems: ImportProblem[];
 }
 
 /** How much of the file detection reads. */
 export const DETECT_SAMPLE_BYTES = 256 * 1024;
+const DETECT_SAMPLE_LINES = 2000;
 const MAX_SAMPLE_ROWS = 500;
 const PREVIEW_ROWS = 20;
 
@@ -263,55 +277,70 @@ function baseNameOf(opts: DetectOptions): string {
   return n.slice(n.lastIndexOf('/') + 1);
 }
 
-function emptyResult(problems: ProblemList, encoding: EncodingGuess | null): LayoutDetection {
+/** The detection of a file whose shape could not be read: the shape's findings, nothing about columns. */
+function failedDetection(shape: LayoutShape): LayoutDetection {
   return {
+    ...shape,
     ok: false,
-    encoding,
-    delimiter: ',',
-    delimiterConfidence: 0,
     decimalMark: '.',
     decimalMarkConfidence: 0,
-    preamble: { entries: [], otherLines: [] },
-    headerLine: null,
-    header: [],
-    unitsRow: null,
     columns: [],
     suggestedMapping: null,
     suggestedProfile: null,
     confidence: 0,
-    fingerprint: '',
     preview: [],
-    problems: problems.finish(),
   };
 }
 
-export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDetection {
+export const SHAPE_SAMPLE_BYTES = 64 * 1024;
+const SHAPE_SAMPLE_LINES = 400;
+/** Rows that settle the column count of a file without a header. */
+const WIDTH_ROWS = 50;
+
+function failedShape(problems: ProblemList, encoding: EncodingGuess | null): LayoutShape {
+  return {
+    ok: false, encoding, delimiter: ',', delimiterConfidence: 0, preamble: { entries: [], otherLines: [] },
+    headerLine: null, header: [], unitsRow: null, dataStartIndex: 0, fingerprint: '', problems: problems.finish(),
+  };
+}
+
+/**
+ * The sample's text after any byte-order mark: all of it when `bytes` is the whole file and
+ * within `limit`; else the first `limit` bytes, cut after their last whole line.
+ */
+function sampleText(bytes: Uint8Array, encoding: EncodingGuess, isWholeFile: boolean, limit: number): string {
+  const whole = isWholeFile && bytes.length <= limit;
+  const text = new TextDecoder(encoding.encoding === 'windows-1252' ? 'windows-1252' : encoding.encoding)
+    .decode(bytes.subarray(encoding.bomLength, whole ? bytes.length : Math.min(bytes.length, limit)));
+  return whole ? text : text.slice(0, Math.max(text.lastIndexOf('\n'), 0));
+}
+
+export function detectShape(bytes: Uint8Array, opts: DetectOptions): LayoutShape {
   const problems = new ProblemList({ file: opts.fileName, ...(opts.entry !== undefined ? { entry: opts.entry } : {}) });
   if (bytes.length === 0) {
     problems.add('the file is empty (0 bytes)', { code: 'file-empty', severity: 'error', expected: 'a header row and data rows' });
-    return emptyResult(problems, null);
+    return failedShape(problems, null);
   }
-  const whole = opts.isWholeFile ?? bytes.length <= DETECT_SAMPLE_BYTES;
-  const encoding = detectEncoding(bytes, whole);
-  const binary = sniffBinary(bytes, encoding.encoding.startsWith('utf-16'));
+  const isWholeFile = opts.isWholeFile ?? bytes.length <= DETECT_SAMPLE_BYTES;
+  const head = bytes.subarray(0, SHAPE_SAMPLE_BYTES);
+  const encoding = detectEncoding(head, isWholeFile && bytes.length <= SHAPE_SAMPLE_BYTES);
+  const binary = sniffBinary(head, encoding.encoding.startsWith('utf-16'));
   if (binary) {
     problems.add(`this is ${binary}, not a meter export`, { code: 'file-not-text', severity: 'error', expected: 'delimited text (CSV, semicolon, tab or pipe separated)' });
-    return emptyResult(problems, encoding);
+    return failedShape(problems, encoding);
   }
   if (encoding.encoding === 'windows-1252') problems.add(`encoding guessed: ${encoding.reason}`, { code: 'encoding-guessed', severity: 'warning', expected: 'UTF-8 or a byte-order mark' });
 
-  const sample = bytes.subarray(encoding.bomLength, whole ? bytes.length : DETECT_SAMPLE_BYTES);
-  let text = new TextDecoder(encoding.encoding === 'windows-1252' ? 'windows-1252' : encoding.encoding).decode(sample);
-  if (!whole) text = text.slice(0, Math.max(text.lastIndexOf('\n'), 0)); // drop the cut last line
+  const text = sampleText(bytes, encoding, isWholeFile, SHAPE_SAMPLE_BYTES);
   if (!text.trim()) {
     problems.add('the file holds only blank lines', { code: 'file-empty', severity: 'error', expected: 'a header row and data rows' });
-    return emptyResult(problems, encoding);
+    return failedShape(problems, encoding);
   }
-  const lines = text.split(/\r\n|\n|\r/).slice(0, 2000);
+  const lines = text.split(/\r\n|\n|\r/, SHAPE_SAMPLE_LINES);
   const delim = chooseDelimiter(lines);
   if (delim.confidence === 0) {
     problems.add('no delimited rows found', { code: 'file-no-header', severity: 'error', expected: 'rows of fields separated by comma, semicolon, tab or |', found: lines.find((l) => l.trim()) ?? '' });
-    return emptyResult(problems, encoding);
+    return failedShape(problems, encoding);
   }
   const d = delim.delimiter;
   const counts = lines.map((l) => (l.trim() ? countFields(l, d) : 0));
@@ -340,19 +369,8 @@ export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDete
     }
   }
   const header = hasHeader ? headerFields.map((s) => s.trim()) : [];
-  // Data rows through the real tokenizer, so quoted line breaks count right.
-  const dataText = lines.slice(dataStart).join('\n');
-  const tok = tokenizeAll(dataText, d, MAX_SAMPLE_ROWS * 2);
-  const rows: string[][] = [];
-  const rowLines: number[] = [];
-  tok.rows.forEach((r, i) => {
-    if (r.length === 1 && !r[0].trim()) return;
-    if (rows.length < MAX_SAMPLE_ROWS) {
-      rows.push(r);
-      rowLines.push(tok.lines[i] + dataStart);
-    }
-  });
-  if (rows.length === 0) {
+  const firstRows = dataRows(lines.slice(dataStart), d, dataStart, WIDTH_ROWS).rows;
+  if (firstRows.length === 0) {
     problems.add(hasHeader ? 'the file has a header row but no data rows' : 'the file has no data rows', {
       code: 'file-header-only',
       severity: 'error',
@@ -360,7 +378,51 @@ export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDete
       expected: 'data rows after the header',
     });
   }
-  const width = Math.max(header.length, ...rows.slice(0, 50).map((r) => r.length));
+  const width = Math.max(header.length, ...firstRows.map((r) => r.length));
+  return {
+    ok: firstRows.length > 0,
+    encoding,
+    delimiter: d,
+    delimiterConfidence: delim.confidence,
+    preamble,
+    headerLine: hasHeader ? h + 1 : null,
+    header,
+    unitsRow,
+    dataStartIndex: dataStart,
+    fingerprint: headerFingerprint({ delimiter: d, header, preambleKeys: preamble.entries.map((e) => e.key), unitsRow: unitsRow !== null, columnCount: width }),
+    problems: problems.finish(),
+  };
+}
+
+/** Non-blank data rows through the real tokenizer (so quoted line breaks count right), with their 1-based lines. */
+function dataRows(lines: string[], d: Delimiter, firstIndex: number, max: number): { rows: string[][]; rowLines: number[] } {
+  const tok = tokenizeAll(lines.join('\n'), d, max * 2);
+  const rows: string[][] = [];
+  const rowLines: number[] = [];
+  tok.rows.forEach((r, i) => {
+    if (r.length === 1 && !r[0].trim()) return;
+    if (rows.length < max) {
+      rows.push(r);
+      rowLines.push(tok.lines[i] + firstIndex);
+    }
+  });
+  return { rows, rowLines };
+}
+
+/**
+ * The full detection, for the mapping wizard: the shape, then each column's kind and unit
+ * from up to MAX_SAMPLE_ROWS data rows of the first DETECT_SAMPLE_BYTES, and a suggested
+ * mapping and profile.
+ */
+export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDetection {
+  const shape = detectShape(bytes, opts);
+  if (!shape.ok) return failedDetection(shape);
+  const isWholeFile = opts.isWholeFile ?? bytes.length <= DETECT_SAMPLE_BYTES;
+  const encoding = shape.encoding!; // a readable shape always has one
+  const lines = sampleText(bytes, encoding, isWholeFile, DETECT_SAMPLE_BYTES).split(/\r\n|\n|\r/, DETECT_SAMPLE_LINES);
+  const { rows, rowLines } = dataRows(lines.slice(shape.dataStartIndex), shape.delimiter, shape.dataStartIndex, MAX_SAMPLE_ROWS);
+  const { header, unitsRow, preamble, fingerprint, delimiter: d } = shape;
+  const width = Math.max(header.length, ...rows.slice(0, WIDTH_ROWS).map((r) => r.length));
   const decimal = chooseDecimalMark(rows, d);
   const columns: DetectedColumn[] = [];
   for (let i = 0; i < width; i++) {
@@ -394,8 +456,7 @@ export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDete
     role,
     referenceLink: link,
   };
-  const fingerprint = headerFingerprint({ delimiter: d, header, preambleKeys: preamble.entries.map((e) => e.key), unitsRow: unitsRow !== null, columnCount: width });
-  const required = [delim.confidence, time?.confidence ?? 0, mapping.level?.confidence ?? 0, tag?.confidence ?? 0];
+  const required = [shape.delimiterConfidence, time?.confidence ?? 0, mapping.level?.confidence ?? 0, tag?.confidence ?? 0];
   let suggestedProfile: InstrumentProfile | null = null;
   if (time && mapping.level && tag) {
     suggestedProfile = {
@@ -422,22 +483,15 @@ export function detectLayout(bytes: Uint8Array, opts: DetectOptions): LayoutDete
     };
   }
   return {
-    ok: rows.length > 0,
-    encoding,
-    delimiter: d,
-    delimiterConfidence: delim.confidence,
+    ...shape,
+    ok: true,
     decimalMark: decimal.mark,
     decimalMarkConfidence: decimal.confidence,
-    preamble,
-    headerLine: hasHeader ? h + 1 : null,
-    header,
-    unitsRow,
     columns,
     suggestedMapping: mapping,
     suggestedProfile,
     confidence: Math.min(...required),
-    fingerprint,
     preview: rows.slice(0, PREVIEW_ROWS).map((fields, i) => ({ line: rowLines[i], fields })),
-    problems: problems.finish(),
   };
 }
+

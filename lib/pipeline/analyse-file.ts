@@ -5,12 +5,12 @@
 // small AnalysedTest records are kept.
 
 import type { ParamOverrides } from '@/lib/analysis/defaults';
-import { DETECT_SAMPLE_BYTES, detectLayout, type LayoutDetection } from '@/lib/import/detect-layout';
+import { DETECT_SAMPLE_BYTES, detectLayout, detectShape, type LayoutDetection, type LayoutShape } from '@/lib/import/detect-layout';
 import type { InstrumentProfile } from '@/lib/import/instrument-profile';
 import type { NormalisedTest } from '@/lib/import/normalised-test';
 import { createTestReader, type RowCounts, type TestReader } from '@/lib/import/read-tests';
 import { measureTest, type AnalysedTest, type ProfileUsed } from './analysed-test';
-import { chooseProfile } from './choose-profile';
+import { chooseProfile, givenProfileFor, type ProfileChoice } from './choose-profile';
 import { isRefusal, type PipelineProblem } from './problems';
 import { settleTests } from './settle';
 import type { TrapRegister } from './trap-register';
@@ -36,12 +36,17 @@ export interface FileOptions extends RunOptions {
    * refused in the end (FileAnalysis.refused), discard what was handed out.
    */
   onTest?: (analysed: AnalysedTest, test: NormalisedTest) => void;
+  /** The shape of this file's start, when the caller has read it already (detectShape of the same bytes). */
+  shape?: LayoutShape;
 }
 
 export interface FileAnalysis {
   file: string;
   entry: string | null;
-  /** Null only when the file was never started (no bytes pushed is still detected as empty). */
+  /**
+   * The full layout detection, made only when no given profile reads the file's shape
+   * (./choose-profile.ts); null when one did, or when the file was never started.
+   */
   detection: LayoutDetection | null;
   profileUsed: ProfileUsed | null;
   /** Settled within this file; settle again across the run (./analyse-inputs.ts) for references in other files. */
@@ -80,12 +85,16 @@ export function createFileAnalyser(opts: FileOptions): FileAnalyser {
       o += c.length;
     }
     head = [];
-    detection = detectLayout(isWholeFile ? joined : joined.subarray(0, DETECT_SAMPLE_BYTES), {
-      fileName: opts.fileName,
-      ...(opts.entry !== undefined ? { entry: opts.entry } : {}),
-      isWholeFile,
-    });
-    const choice = chooseProfile(detection, givenProfiles(opts), place);
+    const sample = isWholeFile ? joined : joined.subarray(0, DETECT_SAMPLE_BYTES);
+    const detectOptions = { fileName: opts.fileName, ...(opts.entry !== undefined ? { entry: opts.entry } : {}), isWholeFile };
+    const given = givenProfiles(opts);
+    const direct = givenProfileFor(opts.shape ?? detectShape(sample, detectOptions), given);
+    let choice: ProfileChoice;
+    if (direct) choice = { ok: true, profile: direct, source: 'given' };
+    else {
+      detection = detectLayout(sample, detectOptions);
+      choice = chooseProfile(detection, given, place);
+    }
     if (!choice.ok) {
       problems.push(...choice.problems);
       stopped = true;

@@ -7,8 +7,10 @@
 //   3. the only given profile, when exactly one was given: the caller said it reads these
 //      files, and if it does not the reader says so (header-mismatch) with the place;
 //   4. the layout detection's suggested profile.
+// Rules 1–3 need only the file's shape (lib/import/detect-layout.ts detectShape); the full
+// detection, which reads many more rows, runs only when they find no profile.
 
-import type { LayoutDetection } from '@/lib/import/detect-layout';
+import type { LayoutDetection, LayoutShape } from '@/lib/import/detect-layout';
 import { normaliseWord } from '@/lib/import/header-vocabulary';
 import type { InstrumentProfile } from '@/lib/import/instrument-profile';
 import { makeProblem, type PipelineProblem, type ProblemPlace } from './problems';
@@ -23,21 +25,28 @@ function headerWords(header: readonly string[]): string[] {
   return out;
 }
 
-function sameLayout(p: InstrumentProfile, d: LayoutDetection): boolean {
+function sameLayout(p: InstrumentProfile, d: LayoutShape): boolean {
   if (p.delimiter !== d.delimiter) return false;
   const a = headerWords(p.header);
   const b = headerWords(d.header);
   return a.length > 0 && a.length === b.length && a.every((w, i) => w === b[i]);
 }
 
-export function chooseProfile(detection: LayoutDetection, given: readonly InstrumentProfile[], place: ProblemPlace): ProfileChoice {
-  if (detection.ok) {
-    const byPrint = given.find((p) => p.fingerprint !== undefined && p.fingerprint === detection.fingerprint);
-    if (byPrint) return { ok: true, profile: byPrint, source: 'given' };
-    const byHeader = given.find((p) => sameLayout(p, detection));
-    if (byHeader) return { ok: true, profile: byHeader, source: 'given' };
+/** Rules 1–3: the given profile that reads a file of this shape, if any. */
+export function givenProfileFor(shape: LayoutShape, given: readonly InstrumentProfile[]): InstrumentProfile | null {
+  if (shape.ok) {
+    const byPrint = given.find((p) => p.fingerprint !== undefined && p.fingerprint === shape.fingerprint);
+    if (byPrint) return byPrint;
+    const byHeader = given.find((p) => sameLayout(p, shape));
+    if (byHeader) return byHeader;
   }
-  if (given.length === 1) return { ok: true, profile: given[0], source: 'given' };
+  return given.length === 1 ? given[0] : null;
+}
+
+/** Rule 4, once rules 1–3 found nothing: the detection's own suggestion, or why there is none. */
+export function chooseProfile(detection: LayoutDetection, given: readonly InstrumentProfile[], place: ProblemPlace): ProfileChoice {
+  const profile = givenProfileFor(detection, given);
+  if (profile) return { ok: true, profile, source: 'given' };
   if (detection.suggestedProfile) return { ok: true, profile: detection.suggestedProfile, source: 'detected' };
   const refusals = detection.problems.filter((p) => p.severity === 'error');
   if (refusals.length) return { ok: false, problems: detection.problems };

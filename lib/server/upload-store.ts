@@ -50,8 +50,14 @@ export async function adopt(tempPath: string, sha256: string): Promise<void> {
   await fs.promises.chmod(target, 0o440);
 }
 
-export function readStored(sha256: string): Promise<Buffer> {
-  return fs.promises.readFile(storedPath(sha256));
+/**
+ * The stored bytes, read in one go. fs.promises.readFile makes several trips through the thread
+ * pool (open, stat, read, close), each waiting for the main thread, which an import keeps busy
+ * analysing: on a day of small files that cost more than reading them. Callers read whole files
+ * into memory anyway, and a large one from the page cache takes milliseconds.
+ */
+export async function readStored(sha256: string): Promise<Buffer> {
+  return fs.readFileSync(storedPath(sha256));
 }
 
 /** Stores bytes made on the server (demo files, tests) the same way received files are stored. */

@@ -103,6 +103,31 @@ describe('uploads', () => {
     expect(fs.existsSync('/etc/cron.d/evil.csv')).toBe(false);
   });
 
+  it('unpacks a zip of a day in one go: bytes already in the survey, or twice in the zip, are kept once', async () => {
+    const loose = modelAFileFor('FV-EVP-031');
+    const first = await settled(analyst, (await upload(analyst, surveyId, [loose])).body.id);
+    const looseId = (first.files as FileRow[])[0].id;
+    const twice = modelAFileFor('FV-EVP-032');
+    const other = modelAFileFor('FV-EVP-033');
+    const day = new JSZip();
+    day.file('Evaporators/first.csv', twice.bytes);
+    day.file('Evaporators/again.csv', twice.bytes);
+    day.file('Evaporators/sent-before.csv', loose.bytes);
+    day.file('Evaporators/other.csv', other.bytes);
+    const bytes = await day.generateAsync({ type: 'uint8array', compression: 'DEFLATE' });
+    const done = await settled(analyst, (await upload(analyst, surveyId, [{ name: 'day.zip', bytes }])).body.id);
+    expect(done.status).toBe('done');
+    const entries = new Map((done.files as (FileRow & { duplicateOf: number | null })[]).filter((f) => f.kind === 'entry').map((f) => [f.entry, f]));
+    const firstEntry = entries.get('Evaporators/first.csv')!;
+    expect(firstEntry).toMatchObject({ status: 'processed', testCount: 1, hints: ['Evaporators'], duplicateOf: null });
+    expect(entries.get('Evaporators/again.csv')).toMatchObject({ status: 'duplicate', testCount: 0, duplicateOf: firstEntry.id });
+    expect(entries.get('Evaporators/sent-before.csv')).toMatchObject({ status: 'duplicate', testCount: 0, duplicateOf: looseId });
+    expect(entries.get('Evaporators/other.csv')).toMatchObject({ status: 'processed', testCount: 1 });
+    // The zip and its two new entries are counted; duplicates are not.
+    expect(done.progress).toMatchObject({ filesTotal: 3, filesDone: 3, tests: 2 });
+    expect((await testsOf(done.id)).map((t: { tag: string }) => t.tag).sort()).toEqual(['FV-EVP-032', 'FV-EVP-033']);
+  });
+
   it('reports a truncated zip and stops a zip bomb while it inflates', async () => {
     const bomb = new JSZip();
     bomb.file('day/bomb.csv', new Uint8Array(64 * 1024 * 1024)); // zeros: ~64 KB compressed

@@ -1,7 +1,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { detectLayout } from '@/lib/import/detect-layout';
+import { detectLayout, detectShape } from '@/lib/import/detect-layout';
 import { parseInstrumentProfile, type InstrumentProfile } from '@/lib/import/instrument-profile';
 import { readTests } from '@/lib/import/read-tests';
 import type { NormalisedTest } from '@/lib/import/normalised-test';
@@ -114,6 +114,17 @@ describe('meter fixtures', () => {
         expect(p.file).toBe(fileName);
         expect(p.message).toContain(fileName);
       }
+    });
+
+    it('has the same fingerprint from its shape alone as from the full detection', () => {
+      // The import recognises a saved layout from the shape; the wizard saves the full detection's.
+      const shape = detectShape(bytes, { fileName });
+      expect(shape.ok).toBe(true);
+      expect(shape.fingerprint).toMatch(/^hf1:[0-9a-f]{32}$/);
+      expect(shape.fingerprint).toBe(detectLayout(bytes, { fileName }).fingerprint);
+      // A prefix cut mid-line (as a stream hands it over) has the same shape.
+      const prefix = bytes.subarray(0, Math.min(bytes.length, 9_000));
+      expect(detectShape(prefix, { fileName, isWholeFile: prefix.length === bytes.length }).fingerprint).toBe(shape.fingerprint);
     });
 
     it('is detected without a profile', () => {

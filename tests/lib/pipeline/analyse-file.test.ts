@@ -16,6 +16,8 @@ describe.each(METER_FIXTURES)('$rel', ({ fileName, expected, bytes }) => {
   it('gives every expected test with its tag, role, start and sample count, analysed', () => {
     expect(withProfile.refused).toBe(false);
     expect(withProfile.profileUsed?.source).toBe('given');
+    // The profile reads the file's shape, so no full detection was made.
+    expect(withProfile.detection).toBeNull();
     expect(withProfile.tests.map((t) => [t.tag, t.role, new Date(t.startedAt).toISOString(), t.sampleCount])).toEqual(
       expected.tests.map((e) => [e.tag, e.role, e.startedAt, e.sampleCount]),
     );
