@@ -15,7 +15,7 @@ export type ConfinedMount = { dir: string; sizeKb: number; copyFrom?: string };
 export type ConfinedServer = OwnServer & {
   /** Runs a command in the server's namespace (as its root there); throws with its output if it fails. */
   inside: (command: string, ...args: string[]) => string;
-  /** Makes a mounted tmpfs read-only or writable again. */
+  /** Makes a mounted tmpfs read-only or writable again (the mount's flag: an unprivileged user may not remount the file system itself). */
   remount: (dir: string, mode: 'ro' | 'rw') => void;
   /** Bytes the file system holding `dir` has free, and its block size, as seen by the server. */
   space: (dir: string) => { free: number; block: number };
@@ -34,7 +34,8 @@ export function kibOnTmpfs(dir: string): number {
 }
 
 const WAYS = [
-  { name: 'a user namespace', unshare: ['--user', '--map-root-user', '--mount'], nsenter: ['--user', '--mount'] },
+  // --preserve-credentials: an unprivileged user may not set groups in the namespace it made.
+  { name: 'a user namespace', unshare: ['--user', '--map-root-user', '--mount'], nsenter: ['--user', '--mount', '--preserve-credentials'] },
   { name: 'a mount namespace (root)', unshare: ['--mount'], nsenter: ['--mount'] },
 ];
 
@@ -47,7 +48,7 @@ function confinement() {
   const tried: string[] = [];
   try {
     for (const way of WAYS) {
-      const r = spawnSync('unshare', [...way.unshare, 'sh', '-c', 'mount -t tmpfs -o size=64k plumeward-probe "$1" && mount -o remount,ro "$1"', 'sh', probe], { encoding: 'utf8' });
+      const r = spawnSync('unshare', [...way.unshare, 'sh', '-c', 'mount -t tmpfs -o size=64k plumeward-probe "$1" && mount -o remount,bind,ro "$1"', 'sh', probe], { encoding: 'utf8' });
       if (r.status === 0) return (chosen = way);
       tried.push(`${way.name}: ${r.error?.message ?? r.stderr.trim()}`);
     }
@@ -89,7 +90,7 @@ export async function startConfinedServer(dbPath: string, mounts: ConfinedMount[
   return {
     ...server,
     inside,
-    remount: (dir, mode) => void inside('mount', '-o', `remount,${mode}`, dir),
+    remount: (dir, mode) => void inside('mount', '-o', `remount,bind,${mode}`, dir),
     space: (dir) => {
       const [available, block] = inside('stat', '-f', '-c', '%a %S', dir).trim().split(' ').map(Number);
       return { free: available * block, block };
