@@ -93,14 +93,20 @@ const DETECT_SAMPLE_LINES = 2000;
 const MAX_SAMPLE_ROWS = 500;
 const PREVIEW_ROWS = 20;
 
-/** Field counts of a line split on one delimiter, honouring double quotes. */
-function countFields(line: string, d: string): number {
-  let n = 1;
+const DELIMITER_CODES = DELIMITERS.map((d) => d.charCodeAt(0));
+
+/** Field counts of a line split on each of DELIMITERS (in their order) in one pass, honouring double quotes; 0 for a blank line. */
+function fieldCounts(line: string): number[] {
+  if (!line.trim()) return [0, 0, 0, 0];
+  const n = [1, 1, 1, 1];
   let inQuotes = false;
   for (let i = 0; i < line.length; i++) {
-    const c = line[i];
-    if (c === '"') inQuotes = !inQuotes;
-    else if (c === d && !inQuotes) n++;
+    const c = line.charCodeAt(i);
+    if (c === 34) inQuotes = !inQuotes;
+    else if (!inQuotes) {
+      const k = DELIMITER_CODES.indexOf(c);
+      if (k >= 0) n[k]++;
+    }
   }
   return n;
 }
@@ -114,21 +120,23 @@ function modeOf(counts: number[]): number {
   return best;
 }
 
-function chooseDelimiter(lines: string[]): { delimiter: Delimiter; fields: number; confidence: number; reason: string } {
+function chooseDelimiter(lines: string[]): { delimiter: Delimiter; fields: number; confidence: number; reason: string; counts: number[] } {
+  const perLine = lines.map(fieldCounts);
   const sep = /^\s*"?sep=(.)"?\s*$/i.exec(lines[0] ?? '');
   if (sep && (DELIMITERS as readonly string[]).includes(sep[1])) {
-    const mode = modeOf(lines.slice(1).map((l) => (l.trim() ? countFields(l, sep[1]) : 0)));
-    return { delimiter: sep[1] as Delimiter, fields: mode, confidence: 1, reason: `the first line says sep=${sep[1]}` };
+    const k = DELIMITERS.indexOf(sep[1] as Delimiter);
+    const counts = perLine.map((c) => c[k]);
+    return { delimiter: sep[1] as Delimiter, fields: modeOf(counts.slice(1)), confidence: 1, reason: `the first line says sep=${sep[1]}`, counts };
   }
-  const scored = DELIMITERS.map((d) => {
-    const counts = lines.map((l) => (l.trim() ? countFields(l, d) : 0));
+  const scored = DELIMITERS.map((d, k) => {
+    const counts = perLine.map((c) => c[k]);
     const mode = modeOf(counts);
     const score = mode >= 2 ? counts.filter((c) => c === mode).length : 0;
-    return { d, mode, score };
+    return { d, mode, score, counts };
   }).sort((a, b) => b.score - a.score || b.mode - a.mode);
   const [best, second] = scored;
   const nonBlank = lines.filter((l) => l.trim()).length;
-  if (best.score === 0) return { delimiter: ',', fields: 1, confidence: 0, reason: 'no line splits into fields on , ; tab or |' };
+  if (best.score === 0) return { delimiter: ',', fields: 1, confidence: 0, reason: 'no line splits into fields on , ; tab or |', counts: [] };
   const clear = !second || second.score < best.score * 0.8 || second.mode < best.mode;
   const name = best.d === '\t' ? 'tab' : best.d;
   return {
@@ -136,6 +144,7 @@ function chooseDelimiter(lines: string[]): { delimiter: Delimiter; fields: numbe
     fields: best.mode,
     confidence: Math.min(1, best.score / Math.max(1, nonBlank) + 0.2) * (clear ? 1 : 0.7),
     reason: `${best.score} of ${nonBlank} lines split into ${best.mode} fields on "${name}"`,
+    counts: best.counts,
   };
 }
 
@@ -343,7 +352,7 @@ export function detectShape(bytes: Uint8Array, opts: DetectOptions): LayoutShape
     return failedShape(problems, encoding);
   }
   const d = delim.delimiter;
-  const counts = lines.map((l) => (l.trim() ? countFields(l, d) : 0));
+  const counts = delim.counts;
   const near = (c: number) => c >= 2 && Math.abs(c - delim.fields) <= 1;
   let h = -1;
   for (let i = 0; i < lines.length; i++) {

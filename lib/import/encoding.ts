@@ -1,3 +1,4 @@
+import { isAscii, isUtf8 } from 'node:buffer';
 import iconv from 'iconv-lite';
 
 /** The text encodings a meter export may come in. */
@@ -31,6 +32,9 @@ export function bomOf(bytes: Uint8Array): { encoding: TextEncodingName; length: 
  * non-ASCII byte was seen.
  */
 export function utf8Check(bytes: Uint8Array, isWholeFile: boolean): { badAt: number; nonAscii: boolean } {
+  // Node's own checks first (most exports are plain ASCII); the loop below finds where and why.
+  if (isAscii(bytes)) return { badAt: -1, nonAscii: false };
+  if (isUtf8(bytes)) return { badAt: -1, nonAscii: true };
   let nonAscii = false;
   const n = bytes.length;
   let i = 0;
@@ -73,11 +77,15 @@ export function utf8Check(bytes: Uint8Array, isWholeFile: boolean): { badAt: num
   return { badAt: -1, nonAscii };
 }
 
+const UTF16_SNIFF_BYTES = 4096;
+
 /**
  * UTF-16 without a BOM: text of this trade is mostly ASCII, so every other
  * byte is zero. Which half is zero tells the byte order.
  */
-function utf16WithoutBom(sample: Uint8Array): TextEncodingName | null {
+function utf16WithoutBom(bytes: Uint8Array): TextEncodingName | null {
+  // The first few kilobytes tell as well as the whole sample.
+  const sample = bytes.subarray(0, UTF16_SNIFF_BYTES);
   const pairs = Math.floor(sample.length / 2);
   if (pairs < 4) return null;
   let zeroEven = 0;
