@@ -26,7 +26,7 @@ const LIMITS = { files: 100, samples: 500_000, ageMs: 1_000 };
 export interface ImportBatch {
   /** Queues a file's outcome, writing the batch when it is full or old enough. */
   add(outcome: FileOutcome): Promise<void>;
-  /** Writes whatever is queued. */
+  /** Writes whatever is queued, and returns once every batch is written. */
   flush(): Promise<void>;
 }
 
@@ -47,22 +47,31 @@ export function createImportBatch(target: BatchTarget): ImportBatch {
   let queued: FileOutcome[] = [];
   let samples = 0;
   let since = Date.now();
+  // The batch being written: SQLite works on it in the thread pool while the next files are
+  // read and analysed here. One at a time; its failure surfaces at the next add or flush.
+  let writing: Promise<void> | null = null;
 
-  const flush = async () => {
+  const startWriting = async () => {
+    if (writing) await writing;
     const batch = queued;
     queued = [];
     samples = 0;
     since = Date.now();
-    if (batch.length) await write(target, batch);
+    writing = batch.length ? write(target, batch) : null;
+    writing?.catch(() => undefined); // awaited in its turn; not an unhandled rejection meanwhile
   };
 
   return {
     async add(outcome) {
       queued.push(outcome);
       for (const t of outcome.tests) samples += t.test.sampleCount;
-      if (queued.length >= LIMITS.files || samples >= LIMITS.samples || Date.now() - since >= LIMITS.ageMs) await flush();
+      if (queued.length >= LIMITS.files || samples >= LIMITS.samples || Date.now() - since >= LIMITS.ageMs) await startWriting();
     },
-    flush,
+    async flush() {
+      await startWriting();
+      if (writing) await writing;
+      writing = null;
+    },
   };
 }
 

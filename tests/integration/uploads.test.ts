@@ -104,8 +104,12 @@ describe('uploads', () => {
   });
 
   it('unpacks a zip of a day in one go: bytes already in the survey, or twice in the zip, are kept once', async () => {
+    // A survey of its own: other tests send the same files into the shared one.
+    const ownSurvey = await analyst.post(`/api/sites/${sites.own.siteId}/surveys`, { name: unique('Zip day'), startsOn: '2027-05-03', endsOn: '2027-05-04' });
+    expect(ownSurvey.status).toBe(201);
+    const daySurvey = ownSurvey.body.id as number;
     const loose = modelAFileFor('FV-EVP-031');
-    const first = await settled(analyst, (await upload(analyst, surveyId, [loose])).body.id);
+    const first = await settled(analyst, (await upload(analyst, daySurvey, [loose])).body.id);
     const looseId = (first.files as FileRow[])[0].id;
     const twice = modelAFileFor('FV-EVP-032');
     const other = modelAFileFor('FV-EVP-033');
@@ -115,7 +119,7 @@ describe('uploads', () => {
     day.file('Evaporators/sent-before.csv', loose.bytes);
     day.file('Evaporators/other.csv', other.bytes);
     const bytes = await day.generateAsync({ type: 'uint8array', compression: 'DEFLATE' });
-    const done = await settled(analyst, (await upload(analyst, surveyId, [{ name: 'day.zip', bytes }])).body.id);
+    const done = await settled(analyst, (await upload(analyst, daySurvey, [{ name: 'day.zip', bytes }])).body.id);
     expect(done.status).toBe('done');
     const entries = new Map((done.files as (FileRow & { duplicateOf: number | null })[]).filter((f) => f.kind === 'entry').map((f) => [f.entry, f]));
     const firstEntry = entries.get('Evaporators/first.csv')!;
