@@ -90,10 +90,12 @@ export async function down({ context: q }: { context: QueryInterface }) {
   await q.dropTable('work_orders');
   // SQLite drops a column by copying the table; other tables refer to surveys, so the check of
   // references is paused for the copy (this connection only; no transaction is open here).
-  await q.sequelize.query('PRAGMA foreign_keys = OFF');
+  // PostgreSQL drops a column in place (ALTER TABLE … DROP COLUMN, its foreign key with it).
+  const sqlite = q.sequelize.getDialect() === 'sqlite';
+  if (sqlite) await q.sequelize.query('PRAGMA foreign_keys = OFF');
   await q.removeColumn('surveys', 'published_by');
   await q.removeColumn('surveys', 'published_settings');
   await q.removeColumn('surveys', 'published_summary');
-  await q.sequelize.query('PRAGMA foreign_keys = ON');
+  if (sqlite) await q.sequelize.query('PRAGMA foreign_keys = ON');
   await q.dropTable('site_cost_settings');
 }

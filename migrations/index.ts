@@ -9,6 +9,7 @@ import * as m20261201020000 from './20261201020000-create-trap-verdicts';
 import * as m20261201030000 from './20261201030000-create-outcome-tables';
 import * as m20261201070000 from './20261201070000-add-test-list-indexes';
 import * as m20261201080000 from './20261201080000-add-test-loss-mode';
+import * as m20261201090000 from './20261201090000-add-upload-claims';
 
 export const migrations = [
   { name: '20261201000100-create-users-sites-memberships', ...m20261201000100 },
@@ -21,4 +22,5 @@ export const migrations = [
   { name: '20261201030000-create-outcome-tables', ...m20261201030000 },
   { name: '20261201070000-add-test-list-indexes', ...m20261201070000 },
   { name: '20261201080000-add-test-loss-mode', ...m20261201080000 },
+  { name: '20261201090000-add-upload-claims', ...m20261201090000 },
 ];

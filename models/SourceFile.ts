@@ -52,7 +52,8 @@ SourceFile.init(
     entry: { type: DataTypes.STRING(1000), allowNull: true },
     kind: { type: DataTypes.STRING(12), allowNull: false },
     sha256: { type: DataTypes.STRING(64), allowNull: false },
-    size: { type: DataTypes.BIGINT, allowNull: false },
+    // PostgreSQL's driver returns int8 as text (to keep precision past 2^53); a file's size is far below that.
+    size: { type: DataTypes.BIGINT, allowNull: false, get() { return Number(this.getDataValue('size')); } },
     status: { type: DataTypes.STRING(24), allowNull: false },
     fingerprint: { type: DataTypes.STRING(40), allowNull: true },
     profileRevision: { type: DataTypes.INTEGER, allowNull: true },

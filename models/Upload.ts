@@ -23,6 +23,9 @@ export class Upload extends Model<InferAttributes<Upload>, InferCreationAttribut
   declare mappingDraft: CreationOptional<Record<string, unknown> | null>;
   declare startedAt: CreationOptional<Date | null>;
   declare finishedAt: CreationOptional<Date | null>;
+  /** The import worker's instance that took the upload, and when it last said it was still at it. */
+  declare claimedBy: CreationOptional<string | null>;
+  declare claimedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -39,6 +42,8 @@ Upload.init(
     mappingDraft: { type: DataTypes.JSON, allowNull: true },
     startedAt: { type: DataTypes.DATE, allowNull: true },
     finishedAt: { type: DataTypes.DATE, allowNull: true },
+    claimedBy: { type: DataTypes.STRING(120), allowNull: true },
+    claimedAt: { type: DataTypes.DATE, allowNull: true },
     createdAt: DataTypes.DATE,
     updatedAt: DataTypes.DATE,
   },

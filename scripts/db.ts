@@ -1,5 +1,5 @@
 // Database chores: npm run db:migrate | db:migrate:undo | db:seed | db:seed:undo
-import { databasePath, sequelize } from '@/lib/db';
+import { databaseLabel, sequelize } from '@/lib/db';
 import { migrator, seeder } from '@/lib/migrator';
 
 const commands: Record<string, () => Promise<string[]>> = {
@@ -18,7 +18,7 @@ async function main() {
     process.exit(2);
   }
   const done = await run();
-  console.log(`${databasePath()}: ${done.length ? done.join('\n  ') : 'nothing to do'}`);
+  console.log(`${databaseLabel()}: ${done.length ? done.join('\n  ') : 'nothing to do'}`);
   await sequelize.close();
 }
 

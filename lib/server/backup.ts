@@ -2,10 +2,13 @@
 // own backup API (a consistent snapshot while the app keeps running; WAL readers and writers are
 // not blocked for long) and the upload store copied file by file, with a manifest of row counts
 // and SHA-256s so a restore can prove it is whole. Used by scripts/db-backup.ts and db-restore.ts.
+// SQLite only: an installation on PostgreSQL (PLUMEWARD_DATABASE_URL) is backed up with that
+// server's own tools, and createBackup says so instead of copying a SQLite file nobody uses.
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import sqlite3 from 'sqlite3';
+import { databaseLabel, databaseUrl } from '@/lib/db';
 
 export interface BackupManifest {
   format: 'plumeward.backup';
@@ -114,6 +117,11 @@ export const stamp = (d = new Date()) => d.toISOString().replace(/[-:]/g, '').re
 
 /** Backs up the database and the upload store into `folder` (created; must not exist yet). */
 export async function createBackup(opts: { database: string; store: string; folder: string }): Promise<BackupManifest> {
+  if (databaseUrl()) {
+    throw new Error(`db:backup copies a SQLite database with SQLite's backup API, and this installation uses PostgreSQL (${databaseLabel()}, from PLUMEWARD_DATABASE_URL). `
+      + 'Back up the database with pg_dump (pg_dump --format=custom --file=plumeward.dump "$PLUMEWARD_DATABASE_URL"; restore with pg_restore into an empty database) '
+      + `and copy the upload store (${opts.store}) beside the dump.`);
+  }
   if (fs.existsSync(opts.folder)) throw new Error(`${opts.folder} exists already: a backup goes into a new folder.`);
   fs.mkdirSync(opts.folder, { recursive: true });
   const dbCopy = path.join(opts.folder, 'plumeward.sqlite');

@@ -1,4 +1,5 @@
 import 'server-only';
+import os from 'node:os';
 import { Op } from 'sequelize';
 import { writeTransaction } from '@/lib/db';
 import { Upload } from '@/models';
@@ -8,15 +9,62 @@ import { clearIncoming } from './receive-upload';
 // One background worker per server process: uploads are processed one at a time, in order.
 // State lives in the database, so a restart finds what was interrupted and does it again
 // (each file lands in one transaction: a file is either wholly imported or not at all).
+//
+// Several instances may share one database (README, "Many sites, one database"). An upload is
+// taken with one conditional UPDATE (queued → processing where it is still queued), so of two
+// workers reaching for the same upload exactly one gets it; the loser's update changes no row.
+// The taker writes its instance name and renews the time while it works: a restarting instance
+// takes back only its own interrupted uploads, and another's only once that one has been silent
+// for STALE_MS (it crashed and did not come back). Idle workers look for queued uploads every
+// POLL_MS, so an upload received by a busy instance is picked up by a free one.
+
+const HEARTBEAT_MS = 30_000;
+const STALE_MS = 10 * 60_000;
+const POLL_MS = 30_000;
+
+/** This instance's name: PLUMEWARD_INSTANCE, else the host name (give each process on one host its own). */
+export const instanceName = () => (process.env.PLUMEWARD_INSTANCE || os.hostname()).slice(0, 120);
 
 const state = globalThis as unknown as { plumewardImportWorker?: { running: boolean; again: boolean; started: boolean } };
 const worker = (state.plumewardImportWorker ??= { running: false, again: false, started: false });
 
+/** Puts back in the queue the uploads a worker holds that is gone: this instance before its restart, or any silent one. */
+async function requeueAbandoned(includingMine: boolean) {
+  const silent = { [Op.or]: [{ claimedAt: null }, { claimedAt: { [Op.lt]: new Date(Date.now() - STALE_MS) } }] };
+  const where = { status: 'processing', ...(includingMine ? { [Op.or]: [{ claimedBy: instanceName() }, { claimedBy: null }, silent] } : silent) };
+  // Read first: the poll runs every half minute and should not take SQLite's write lock for nothing.
+  if (!(await Upload.findOne({ where, attributes: ['id'] }))) return;
+  await writeTransaction((transaction) => Upload.update({ status: 'queued', claimedBy: null, claimedAt: null }, { where, transaction }));
+}
+
+/** Takes a queued upload for this instance; false when another worker took it first. */
+async function claim(uploadId: number): Promise<boolean> {
+  const [taken] = await writeTransaction((transaction) => Upload.update(
+    { status: 'processing', claimedBy: instanceName(), claimedAt: new Date() },
+    { where: { id: uploadId, status: 'queued' }, transaction },
+  ));
+  return taken === 1;
+}
+
+/** Renews this instance's claim on the upload while `work` runs. */
+async function holding<T>(uploadId: number, work: () => Promise<T>): Promise<T> {
+  const timer = setInterval(() => {
+    writeTransaction((transaction) => Upload.update({ claimedAt: new Date() }, { where: { id: uploadId, status: 'processing', claimedBy: instanceName() }, transaction }))
+      .catch((err) => console.warn(`Could not renew the claim on upload ${uploadId}`, err));
+  }, HEARTBEAT_MS);
+  try {
+    return await work();
+  } finally {
+    clearInterval(timer);
+  }
+}
+
 export async function startImportWorker() {
   if (worker.started) return;
   worker.started = true;
-  await writeTransaction((transaction) => Upload.update({ status: 'queued' }, { where: { status: 'processing' }, transaction }));
+  await requeueAbandoned(true);
   await clearIncoming().catch((err) => console.warn('Could not tidy the incoming upload folder', err));
+  setInterval(kickImportWorker, POLL_MS).unref();
   kickImportWorker();
 }
 
@@ -31,15 +79,19 @@ export function kickImportWorker() {
     try {
       do {
         worker.again = false;
+        await requeueAbandoned(false);
         for (;;) {
-          const next = await Upload.findOne({ where: { status: { [Op.in]: ['queued'] } }, order: [['id', 'ASC']] });
+          const next = await Upload.findOne({ where: { status: 'queued' }, order: [['id', 'ASC']], attributes: ['id'] });
           if (!next) break;
-          await processUpload(next.id).catch(async (err) => {
+          if (!(await claim(next.id))) continue;
+          await holding(next.id, () => processUpload(next.id)).catch(async (err) => {
             console.error(`Upload ${next.id} failed`, err);
             await writeTransaction((transaction) => Upload.update({ status: 'failed', error: 'The import stopped on an unexpected error; it has been logged.', finishedAt: new Date() }, { where: { id: next.id }, transaction }));
           });
         }
       } while (worker.again);
+    } catch (err) {
+      console.error('The import worker stopped on an error; it looks again at the next upload or poll', err);
     } finally {
       worker.running = false;
     }

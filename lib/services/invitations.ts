@@ -82,7 +82,8 @@ const REFUSED: Record<Exclude<InvitationState, 'pending'> | 'unknown', string> =
 export async function acceptInvitation(token: string, password: string) {
   const passwordHash = await hashPassword(password);
   return writeTransaction(async (transaction) => {
-    const invitation = await Invitation.findOne({ where: { tokenHash: hashOf(token) }, transaction });
+    // Locked on PostgreSQL, where two instances may take the same link at once; the second then sees it used.
+    const invitation = await Invitation.findOne({ where: { tokenHash: hashOf(token) }, transaction, lock: true });
     const state = invitation ? stateOf(invitation) : 'unknown';
     if (state !== 'pending') throw new AppError(state === 'unknown' ? 'not_found' : 'conflict', REFUSED[state]);
     const user = await User.create({ email: invitation!.email, name: invitation!.name, role: invitation!.role, passwordHash }, { transaction }).catch((err) => {

@@ -1,7 +1,7 @@
 import 'server-only';
 import { Op, UniqueConstraintError, type Order, type WhereOptions } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
-import { writeTransaction } from '@/lib/db';
+import { containsFilter, writeTransaction } from '@/lib/db';
 import { AppError, notFound } from '@/lib/http/errors';
 import type { TrapInput, TrapListQuery } from '@/lib/validation/trap';
 import { Area, Trap } from '@/models';
@@ -15,10 +15,12 @@ export async function listTraps(siteId: number, query: TrapListQuery) {
   if (query.trapType) Object.assign(where, { trapType: query.trapType });
   if (query.status) Object.assign(where, { status: query.status });
   if (query.q) {
-    const like = `%${query.q}%`;
-    Object.assign(where, { [Op.or]: [{ tag: { [Op.like]: like } }, { location: { [Op.like]: like } }] });
+    const contains = containsFilter(query.q);
+    Object.assign(where, { [Op.or]: [{ tag: contains }, { location: contains }] });
   }
-  const dir = query.dir === 'desc' ? 'DESC' : 'ASC';
+  // Empty values (no area, no size) sort first ascending and last descending, as SQLite does by
+  // itself; PostgreSQL does the opposite unless told.
+  const dir = query.dir === 'desc' ? 'DESC NULLS LAST' : 'ASC NULLS FIRST';
   const order: Order =
     query.sort === 'area'
       ? [[{ model: Area, as: 'area' }, 'name', dir], ['tag', 'ASC']]

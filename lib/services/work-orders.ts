@@ -335,7 +335,8 @@ export async function settleWorkOrdersAfterUpload(uploadId: number) {
 /**
  * One reminder per overdue order per day (the site's calendar day): open, scheduled or re-opened
  * orders with an assignee whose due date has passed. The claim (remindedAt) is written in an
- * IMMEDIATE transaction before the mail goes, so two runs at once cannot both send.
+ * IMMEDIATE transaction (SQLite) or under a row lock (PostgreSQL) before the mail goes, so two
+ * runs at once, in one instance or two, cannot both send.
  */
 export async function sendOverdueReminders(now = new Date(), siteIds: number[] | 'all' = 'all') {
   const sites = await Site.findAll(siteIds === 'all' ? {} : { where: { id: { [Op.in]: siteIds } } });
@@ -348,7 +349,9 @@ export async function sendOverdueReminders(now = new Date(), siteIds: number[] |
     });
     for (const { id } of due) {
       const claimed = await writeTransaction(async (transaction) => {
-        const order = (await WorkOrder.findByPk(id, { transaction }))!;
+        // FOR UPDATE on PostgreSQL, where another instance may be sending the same reminders: the
+        // second waits here and then reads the first one's remindedAt. (SQLite: one writer anyway.)
+        const order = (await WorkOrder.findByPk(id, { transaction, lock: true }))!;
         if (!ASSIGNABLE.includes(order.status) || !order.assigneeId || !order.dueOn || order.dueOn >= today) return false;
         if (order.remindedAt && localDate(order.remindedAt, site.timeZone) >= today) return false;
         await order.update({ remindedAt: now }, { transaction, silent: true });

@@ -1,14 +1,11 @@
 // Personal API tokens as scripts use them: Authorization: Bearer …
-import sqlite3 from 'sqlite3';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { hashToken } from '@/lib/auth/tokens';
 import { demoSites, signInAdmin } from '../support/fixtures';
 import { Client, DEMO_ANALYST_TOKEN, unique } from '../support/http';
+import { queryDb as query } from '../support/own-server';
 
-function queryDb<T>(sql: string, params: unknown[] = []): Promise<T[]> {
-  const db = new sqlite3.Database(inject('dbPath'), sqlite3.OPEN_READONLY);
-  return new Promise((resolve, reject) => db.all(sql, params, (err, rows) => { db.close(); return err ? reject(err) : resolve(rows as T[]); }));
-}
+const queryDb = <T>(sql: string, params: unknown[] = []) => query<T>(inject('dbPath'), sql, params);
 
 describe('API tokens', () => {
   let admin: Client;

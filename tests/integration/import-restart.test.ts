@@ -3,16 +3,10 @@
 import { createHash } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import sqlite3 from 'sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, signedIn } from '../support/http';
-import { runDb, startServer, tempDb, type OwnServer } from '../support/own-server';
+import { queryDb as query, runDb, startServer, tempDb, type OwnServer } from '../support/own-server';
 import { modelAFileFor, multipart, type FilePart } from '../support/uploads';
-
-function query<T>(dbPath: string, sql: string): Promise<T[]> {
-  const db = new sqlite3.Database(dbPath, sqlite3.OPEN_READONLY);
-  return new Promise((resolve, reject) => db.all(sql, (err, rows) => { db.close(); return err ? reject(err) : resolve(rows as T[]); }));
-}
 
 describe('an import interrupted by a crash', () => {
   let server: OwnServer;

@@ -1,11 +1,11 @@
 // E-mail over real SMTP: the app sends through nodemailer to the local catcher the global setup
 // started on loopback; these tests read what it received through the admin's mailbox API.
-import sqlite3 from 'sqlite3';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { SAFETY_LINES } from '@/lib/mail/messages';
 import { demoSites, signInAdmin, type SiteIds } from '../support/fixtures';
 import { baseUrl, Client, DEMO, signedIn, unique } from '../support/http';
 import { mailTo, type Mail } from '../support/mailbox';
+import { queryDb } from '../support/own-server';
 import { freshWorkOrder } from './samples/work-orders';
 
 
@@ -31,15 +31,8 @@ async function acceptThroughPage(token: string, password: string) {
   return { status: res.status, html, location: res.headers.get('location') };
 }
 
-function setExpiry(invitationId: number, at: Date) {
-  return new Promise<void>((resolve, reject) => {
-    const db = new sqlite3.Database(inject('dbPath'));
-    db.run('PRAGMA busy_timeout=10000', () => db.run('UPDATE invitations SET expires_at = ? WHERE id = ?', [at.toISOString().replace('T', ' ').replace('Z', ' +00:00'), invitationId], (err) => {
-      db.close();
-      if (err) reject(err);
-      else resolve();
-    }));
-  });
+async function setExpiry(invitationId: number, at: Date) {
+  await queryDb(inject('dbPath'), 'UPDATE invitations SET expires_at = ? WHERE id = ?', [at.toISOString().replace('T', ' ').replace('Z', ' +00:00'), invitationId]);
 }
 
 describe('e-mail', () => {

@@ -1,15 +1,6 @@
 // Migrations run down and up again cleanly on a seeded database (a copy of the demo's data).
-import sqlite3 from 'sqlite3';
 import { describe, expect, it } from 'vitest';
-import { runDb, tempDb } from '../support/own-server';
-
-function tables(dbPath: string): Promise<string[]> {
-  const db = new sqlite3.Database(dbPath, sqlite3.OPEN_READONLY);
-  return new Promise((resolve, reject) => db.all("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' ORDER BY name", (err, rows: { name: string }[]) => {
-    db.close();
-    return err ? reject(err) : resolve(rows.map((r) => r.name));
-  }));
-}
+import { runDb, tableNames as tables, tempDb } from '../support/own-server';
 
 describe('migrations', () => {
   it('undo to nothing on the seeded demo, then apply again and seed again', async () => {

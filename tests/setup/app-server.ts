@@ -1,10 +1,12 @@
 // Global setup of the app tier: a fresh SQLite file with the real migrations and the demo seed,
 // and the built app (`next build` has run) served on a free loopback port. Tests reach it over HTTP.
+// With PLUMEWARD_DATABASE_URL set (the PostgreSQL leg of .ci/run) the database is instead the one
+// that URL names, emptied (schema dropped and made again), then migrated and seeded the same way.
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
-import { freePort, runDb } from '../support/own-server';
+import { APP_TIER_FOLDER, databaseEnv, databaseUrlOf, freePort, freshDatabase, runDb } from '../support/own-server';
 import { startMailCatcher } from '../../lib/mail/catcher';
 
 declare module 'vitest' {
@@ -36,7 +38,7 @@ export default async function setup(project: TestProject) {
     throw new Error('No production build: run `npm run build` first (npm test does).');
   }
   fs.mkdirSync(path.join(root, 'tmp'), { recursive: true });
-  const dir = fs.mkdtempSync(path.join(root, 'tmp', 'app-tests-'));
+  const dir = fs.mkdtempSync(path.join(root, 'tmp', APP_TIER_FOLDER));
   const dbPath = path.join(dir, 'plumeward.sqlite');
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
@@ -45,7 +47,7 @@ export default async function setup(project: TestProject) {
   const catcher = await startMailCatcher({ file: mailboxPath });
   const env: NodeJS.ProcessEnv = {
     ...process.env,
-    PLUMEWARD_DB: dbPath,
+    ...databaseEnv(dbPath),
     NEXTAUTH_URL: baseUrl,
     NEXTAUTH_SECRET: 'test-secret-for-this-run-only',
     NEXT_TELEMETRY_DISABLED: '1',
@@ -58,6 +60,8 @@ export default async function setup(project: TestProject) {
     MAIL_FROM: 'Plumeward tests <no-reply@plumeward.example>',
     PLUMEWARD_MAILBOX: mailboxPath,
   };
+  freshDatabase(dbPath);
+  console.log(`App tier on ${databaseUrlOf(dbPath)?.replace(/\/\/[^@]*@/, '//') ?? dbPath}`);
   runDb('migrate', dbPath);
   runDb('seed', dbPath);
 
