@@ -9,7 +9,7 @@
 
 import { bandShares, resolveBands, type BandShares, type ResolvedBands } from './bands';
 import { computeBaseline } from './baseline';
-import { resolveParams, type AnalysisParams, type ParamOverrides } from './defaults';
+import { NO_OVERRIDES, resolveParams, type AnalysisParams, type ParamOverrides } from './defaults';
 import { costOfLoss, type LossCost } from './energy-cost';
 import { detectCycles, type CycleAnalysis } from './intervals';
 import { computeLevelStatistics, type LevelStatistics } from './level-statistics';
@@ -106,7 +106,7 @@ export function judgeTest(
   return { reference, verdict, loss, lossNote };
 }
 
-export function analyseTest(input: TestInput, overrides: ParamOverrides | AnalysisParams = {}): TestAnalysis {
+export function analyseTest(input: TestInput, overrides: ParamOverrides | AnalysisParams = NO_OVERRIDES): TestAnalysis {
   const params = resolveParams(overrides as ParamOverrides);
   const level = toFloat32(input.levelDb);
   const n = level.length;

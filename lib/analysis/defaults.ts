@@ -276,9 +276,28 @@ function validate(p: AnalysisParams): void {
   for (const [mode, factor] of Object.entries(p.loss.severity)) requireRange(`loss.severity.${mode}`, factor, 0, 1);
 }
 
-/** Defaults with the given overrides applied, validated. Never mutates DEFAULT_PARAMS. */
-export function resolveParams(overrides: ParamOverrides = {}): AnalysisParams {
-  const resolved = merge(DEFAULT_PARAMS, overrides) as AnalysisParams;
-  validate(resolved);
-  return resolved;
+function deepFreeze<T>(value: T): T {
+  if (typeof value === 'object' && value !== null && !Object.isFrozen(value)) {
+    for (const v of Object.values(value)) deepFreeze(v);
+    Object.freeze(value);
+  }
+  return value;
+}
+
+/** No overrides: the defaults as they are. */
+export const NO_OVERRIDES: ParamOverrides = Object.freeze({});
+
+// An import analyses every test of a file with the same overrides: merging and validating them
+// once per overrides object, not once per test, saves a deep copy per test. The result is
+// frozen, so sharing it is safe.
+const resolved = new WeakMap<object, AnalysisParams>();
+
+/** Defaults with the given overrides applied, validated and frozen. Never mutates DEFAULT_PARAMS. */
+export function resolveParams(overrides: ParamOverrides = NO_OVERRIDES): AnalysisParams {
+  const known = resolved.get(overrides);
+  if (known) return known;
+  const params = merge(DEFAULT_PARAMS, overrides) as AnalysisParams;
+  validate(params);
+  resolved.set(overrides, deepFreeze(params));
+  return params;
 }

@@ -4,7 +4,7 @@
 // (./settle.ts) without reading or analysing any series again.
 
 import { analyseTest, type TestAnalysis } from '@/lib/analysis/analyse-test';
-import type { ParamOverrides } from '@/lib/analysis/defaults';
+import { NO_OVERRIDES, type ParamOverrides } from '@/lib/analysis/defaults';
 import { computeLevelStatistics, type LevelStatistics } from '@/lib/analysis/level-statistics';
 import { summariseTemperature, type TemperatureSummary } from '@/lib/analysis/temperature';
 import type { ReferenceLink } from '@/lib/import/instrument-profile';
@@ -91,7 +91,7 @@ export function measureTest(test: NormalisedTest, ctx: MeasureContext): { analys
   let analysis: TestAnalysis | null = null;
   let notAnalysed: string | null = null;
   let problem: PipelineProblem | null = null;
-  if (input.ok) analysis = analyseTest(input.input, ctx.params ?? {});
+  if (input.ok) analysis = analyseTest(input.input, ctx.params ?? NO_OVERRIDES);
   else {
     notAnalysed = input.reason;
     problem = makeProblem({ file: test.source.file, entry: test.source.entry }, 'test-not-analysed', 'warning', `the test of ${test.tag} is not analysed: ${input.reason}`, {

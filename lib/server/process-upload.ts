@@ -59,6 +59,13 @@ function detectionSummary(d: LayoutDetection) {
   return { ...d, problems: d.problems.slice(0, 50) };
 }
 
+/**
+ * Between files, lets the event loop run: analysing is synchronous, and the promises between
+ * files settle without it, so without this the batch being written (its transaction waits for
+ * the database's callbacks) and the server's requests would wait for the whole upload.
+ */
+const yieldToEventLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
+
 /** Processes every waiting file of an upload, then settles reference checks across its files. */
 export async function processUpload(uploadId: number) {
   const upload = await Upload.findByPk(uploadId);
@@ -82,6 +89,7 @@ export async function processUpload(uploadId: number) {
   for (const file of files) {
     const bytes = file.kind === 'file' ? await readStored(file.sha256) : await entryBytes(file);
     await processFile(ctx, file, bytes);
+    await yieldToEventLoop();
   }
   await ctx.batch.flush();
   await settleUpload(ctx);
@@ -133,7 +141,10 @@ async function unpackZip(ctx: Context, zip: SourceFile) {
     await ctx.upload.increment({ filesTotal: firsts.length, filesDone: 1 }, { transaction });
     return rows.map((row, i) => ({ row, bytes: firsts[i].bytes }));
   });
-  for (const { row, bytes } of entries) await processFile(ctx, row, bytes);
+  for (const { row, bytes } of entries) {
+    await processFile(ctx, row, bytes);
+    await yieldToEventLoop();
+  }
 }
 
 async function processFile(ctx: Context, file: SourceFile, bytes: Uint8Array) {

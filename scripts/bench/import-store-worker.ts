@@ -21,15 +21,23 @@ async function main() {
   const day = dayOfFiles(files, samples);
   await Trap.bulkCreate(day.map((f) => { const { id: _id, ...t } = benchTrap(f.tag); return { ...t, siteId: site.id, areaId: null }; }));
   // Receiving (streaming to disk, hashing) is the upload route's part; the import starts from stored files.
-  const upload = await Upload.create({ siteId: site.id, surveyId: survey.id, createdBy: null, status: 'queued', filesTotal: day.length });
-  const rows = [];
-  for (const f of day) {
-    rows.push({
-      uploadId: upload.id, siteId: site.id, surveyId: survey.id, containerId: null, name: f.name, entry: null,
-      kind: 'file' as const, sha256: await storeBytes(f.bytes), size: f.bytes.length, status: 'pending' as const, profileId: null, duplicateOf: null, hints: [],
-    });
-  }
-  await SourceFile.bulkCreate(rows);
+  const queue = async (surveyId: number, part: typeof day) => {
+    const upload = await Upload.create({ siteId: site.id, surveyId, createdBy: null, status: 'queued', filesTotal: part.length });
+    const rows = [];
+    for (const f of part) {
+      rows.push({
+        uploadId: upload.id, siteId: site.id, surveyId, containerId: null, name: f.name, entry: null,
+        kind: 'file' as const, sha256: await storeBytes(f.bytes), size: f.bytes.length, status: 'pending' as const, profileId: null, duplicateOf: null, hints: [],
+      });
+    }
+    await SourceFile.bulkCreate(rows);
+    return upload;
+  };
+  // A server has imported before: a first, small upload (into a survey of its own) warms the
+  // code up, as papaparse is warm in the parent by its second round.
+  const warmUp = await Survey.create({ siteId: site.id, name: 'Warm-up', startsOn: '2025-04-07', endsOn: '2025-04-07' });
+  await processUpload((await queue(warmUp.id, day.slice(0, Math.ceil(day.length / 10)))).id);
+  const upload = await queue(survey.id, day);
   const t0 = performance.now();
   const cpu0 = process.cpuUsage();
   await processUpload(upload.id);
@@ -38,8 +46,8 @@ async function main() {
   const cpu = process.cpuUsage(cpu0);
   const cpuSeconds = (cpu.user + cpu.system) / 1e6;
   const done = (await Upload.findByPk(upload.id))!;
-  const tests = await Test.count();
-  const series = await TestSeries.count();
+  const tests = await Test.count({ where: { uploadId: upload.id } });
+  const series = await TestSeries.count({ include: [{ model: Test, required: true, where: { uploadId: upload.id } }] });
   await sequelize.close();
   console.log(JSON.stringify({ seconds, cpuSeconds, status: done.status, tests, series, samples: done.sampleCount, error: done.error }));
 }
