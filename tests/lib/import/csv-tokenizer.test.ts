@@ -89,6 +89,26 @@ describe('CsvTokenizer', () => {
     expect(chunkedRows('a,b\r\nc,d\r\n', 4)).toEqual([['a', 'b'], ['c', 'd']]);
   });
 
+  it('reads plain rows (its fast path) and rows with quotes or a lone CR (its careful path) alike, at any chunking', () => {
+    // Own example: every kind of row end and field, mixed, so rows switch between the two paths.
+    const text = 'a,b,c\n1,2,3\r\n"q,1",x,\n\n4,,6\r7,8,9\n"multi\nline",y,z\r\nlast,row,here';
+    const want = [['a', 'b', 'c'], ['1', '2', '3'], ['q,1', 'x', ''], [''], ['4', '', '6'], ['7', '8', '9'], ['multi\nline', 'y', 'z'], ['last', 'row', 'here']];
+    const lines: number[] = [];
+    const t = new CsvTokenizer({ delimiter: ',', onRow: (r) => void lines.push(r.line) });
+    t.push(text);
+    t.end();
+    expect(tokenizeAll(text, ',').rows).toEqual(want);
+    expect(lines).toEqual([1, 2, 3, 4, 5, 6, 7, 9]);
+    for (const size of [1, 2, 3, 4, 6, 9, 13]) expect(chunkedRows(text, size)).toEqual(want);
+  });
+
+  it('reads a file with no delimiter at all as one field per row', () => {
+    const text = Array.from({ length: 2000 }, (_, i) => `${i}`).join('\n') + '\n';
+    const rows = tokenizeAll(text, ';').rows;
+    expect(rows).toHaveLength(2000);
+    expect(rows[1999]).toEqual(['1999']);
+  });
+
   it('keeps an escaped quote split across two chunks', () => {
     expect(chunkedRows('"a""b",c\n', 3)).toEqual([['a"b', 'c']]);
   });
