@@ -18,5 +18,7 @@ declare module 'next-auth' {
 declare module 'next-auth/jwt' {
   interface JWT {
     uid?: number;
+    /** Unix seconds of the sign-in: a session ends SESSION_HOURS after it, however often it is renewed. */
+    signedInAt?: number;
   }
 }

@@ -38,10 +38,17 @@ export const authOptions: NextAuthOptions = {
   ],
   callbacks: {
     jwt({ token, user }) {
-      if (user) token.uid = Number(user.id);
+      if (user) {
+        token.uid = Number(user.id);
+        token.signedInAt = Math.floor(Date.now() / 1000);
+      }
       return token;
     },
     async session({ session, token }) {
+      // next-auth renews the cookie's expiry whenever the session is read, so a page left polling
+      // would stay signed in for ever: the working day counts from the sign-in itself.
+      const signedInAt = typeof token.signedInAt === 'number' ? token.signedInAt : 0;
+      if (Date.now() / 1000 - signedInAt > SESSION_HOURS * 3600) return { ...session, user: undefined };
       // Role and sites come from the database on every call, never from the token, so a change
       // made by an admin shows at once. Authorisation itself re-reads them too (lib/auth/actor.ts).
       const current = token.uid ? await activeUser(token.uid) : null;

@@ -26,7 +26,7 @@ type Me = { userId: number; name: string; email: string };
  * (sub, name, email, uid), expiring `maxAge` after that sign-in.
  */
 async function sessionCookie(me: Me, ago: number): Promise<string> {
-  const token = { sub: String(me.userId), name: me.name, email: me.email, uid: me.userId };
+  const token = { sub: String(me.userId), name: me.name, email: me.email, uid: me.userId, signedInAt: Math.floor(Date.now() / 1000) - ago };
   // encode() stamps exp = now + maxAge; a session signed in `ago` seconds ago has maxAge - ago left.
   return `${COOKIE}=${await encode({ token, secret: SERVER_SECRET, maxAge: maxAge - ago })}`;
 }
@@ -80,6 +80,16 @@ describe('session expiry', () => {
     expect(api.body.error.code).toBe('unauthenticated');
     expect(page.status).toBe(307);
     expect(new URL(page.headers.get('location')!, 'http://x').pathname).toBe('/sign-in');
+    expect(action).toMatchObject({ ok: false, error: { code: 'unauthenticated' } });
+  });
+
+  it('a session renewed since its sign-in still ends a working day after the sign-in', async () => {
+    // next-auth re-issues the cookie with a fresh expiry whenever the session is read; the sign-in time stays.
+    const signedInAt = Math.floor(Date.now() / 1000) - maxAge - 60;
+    const renewed = `${COOKIE}=${await encode({ token: { sub: String(analyst.userId), uid: analyst.userId, signedInAt }, secret: SERVER_SECRET, maxAge })}`;
+    const { api, page, action } = await probe(renewed);
+    expect(api.status).toBe(401);
+    expect(page.status).toBe(307);
     expect(action).toMatchObject({ ok: false, error: { code: 'unauthenticated' } });
   });
 
