@@ -2,7 +2,8 @@ import 'server-only';
 import os from 'node:os';
 import { Op } from 'sequelize';
 import { writeTransaction } from '@/lib/db';
-import { Upload } from '@/models';
+import { databaseStorageFault, fileStorageFault } from '@/lib/http/errors';
+import { SourceFile, Upload } from '@/models';
 import { processUpload } from './process-upload';
 import { clearIncoming } from './receive-upload';
 
@@ -86,7 +87,7 @@ export function kickImportWorker() {
           if (!(await claim(next.id))) continue;
           await holding(next.id, () => processUpload(next.id)).catch(async (err) => {
             console.error(`Upload ${next.id} failed`, err);
-            await writeTransaction((transaction) => Upload.update({ status: 'failed', error: 'The import stopped on an unexpected error; it has been logged.', finishedAt: new Date() }, { where: { id: next.id }, transaction }));
+            await markFailed(next.id, importStoppedReason(err));
           });
         }
       } while (worker.again);
@@ -95,6 +96,28 @@ export function kickImportWorker() {
     } finally {
       worker.running = false;
     }
+  });
+}
+
+/** Why an import stopped, in words the user can act on. */
+function importStoppedReason(err: unknown): string {
+  const fault = databaseStorageFault(err) ?? fileStorageFault(err);
+  if (fault === 'full') return "The import stopped because the server's disk is full: the files not yet read were not imported (nothing of them was kept). Free space on the data disk, then send them again.";
+  if (fault === 'unwritable') return "The import stopped because the server's database cannot be written: the files not yet read were not imported (nothing of them was kept). Your administrator must make it writable; then send them again.";
+  return 'The import stopped on an unexpected error; it has been logged.';
+}
+
+/**
+ * The upload and its unread files are marked failed, with the reason. Left pending, the files
+ * would make the same files sent again count as their duplicates, and never be imported.
+ */
+async function markFailed(uploadId: number, reason: string) {
+  await writeTransaction(async (transaction) => {
+    await Upload.update({ status: 'failed', error: reason, finishedAt: new Date() }, { where: { id: uploadId }, transaction });
+    await SourceFile.update(
+      { status: 'failed', problems: [{ code: 'import-stopped', severity: 'error', message: reason }] },
+      { where: { uploadId, status: 'pending' }, transaction },
+    );
   });
 }
 

@@ -156,6 +156,9 @@ const READ_SQL = `const [sqlite3, file, sql] = process.argv.slice(1);
 const db = new (require(sqlite3).Database)(file, require(sqlite3).OPEN_READONLY, (err) => { if (err) throw err; });
 db.all(sql, (err, rows) => { if (err) throw err; process.stdout.write(JSON.stringify(rows)); db.close(); });`;
 
+const IMPORT_STOPPED_FULL = "The import stopped because the server's disk is full: the files not yet read were not imported (nothing of them was kept). "
+  + 'Free space on the data disk, then send them again.';
+
 const DATABASE_FULL = "The server's database is full: its disk has no space left, so this change was not saved. "
   + 'Free space on the data disk (or ask your administrator to), then try again.';
 
@@ -219,13 +222,19 @@ describe('a database whose disk fills up', () => {
     expect(sent.status).toBe(201);
     const done = await settled(analyst, sent.body.id, 60_000);
     expect(done.status).toBe('failed');
-    expect(done.error).toBeTruthy();
-    const [row] = done.files as { status: string; testCount: number }[];
-    expect(row.status).not.toBe('processed');
-    expect(row.testCount).toBe(0);
+    expect(done.error).toBe(IMPORT_STOPPED_FULL);
+    const [row] = done.files as { status: string; testCount: number; problems: { code: string; message: string }[] }[];
+    // Failed, not left pending: a pending copy would make the same file sent again a "duplicate".
+    expect(row).toMatchObject({ status: 'failed', testCount: 0, problems: [{ code: 'import-stopped', message: IMPORT_STOPPED_FULL }] });
     expect(db(`SELECT COUNT(*) AS n FROM tests WHERE upload_id = ${sent.body.id}`)).toEqual([{ n: 0 }]);
     expect(db(`SELECT COUNT(*) AS n FROM test_series s JOIN tests t ON t.id = s.test_id WHERE t.upload_id = ${sent.body.id}`)).toEqual([{ n: 0 }]);
     expect(db('PRAGMA integrity_check')).toEqual([{ integrity_check: 'ok' }]);
     expect(server.log(), 'the import was stopped by the full disk').toMatch(new RegExp(`Upload ${sent.body.id} failed[\\s\\S]*SQLITE_FULL`));
+
+    // Space freed, the same file sent again is imported.
+    server.inside('rm', filler());
+    const again = await settled(analyst, (await upload(analyst, surveyId, [file])).body.id, 60_000);
+    expect(again.status).toBe('done');
+    expect((again.files as { status: string; testCount: number }[])[0]).toMatchObject({ status: 'processed', testCount: 1 });
   });
 });
