@@ -12,35 +12,31 @@ export type ReceivedFile = { name: string; size: number; sha256: string; mimeTyp
 
 const MB = 1024 * 1024;
 
+/** What formidable may take of one request; everything else about parsing is the same for every caller. */
+type PartLimits = Pick<formidable.Options, 'maxFileSize' | 'maxTotalFileSize' | 'maxFiles' | 'maxFields' | 'maxFieldsSize' | 'allowEmptyFiles' | 'minFileSize'>;
+
 /**
- * Streams a multipart body to disk with formidable (never into memory), hashing each part as it
- * arrives, then adopts each file into the store under its SHA-256. Limits answer 413 with what
- * the limit is; a store that is full answers 507 and one that cannot be written 503. Nothing of
- * a refused upload is kept.
+ * Streams a multipart body's file parts to the store's incoming folder with formidable (never
+ * into memory), hashing each as it arrives. Every caller that takes files goes through here, so
+ * none can keep a truncated part: formidable 3 reports a part as received even when writing it
+ * failed (a disk that filled, or a folder that turned read-only, after its last chunk arrived),
+ * so each part is written by a stream of ours and waited for. On any error every part written
+ * so far is removed before the error (`describe` turns formidable's into the caller's words; a
+ * full or unwritable store is told as such) is thrown. The caller adopts or removes the parts.
  */
-export async function receiveUpload(request: Request): Promise<ReceivedFile[]> {
-  if (!request.body || !request.headers.get('content-type')?.startsWith('multipart/form-data')) {
-    throw new AppError('invalid', 'Send the files as multipart/form-data, one part per file (field name "files").');
-  }
-  const limits = uploadLimits();
+export async function receiveParts(
+  request: Request, limits: PartLimits, describe: (err: unknown) => AppError,
+): Promise<{ fields: formidable.Fields; files: formidable.Files; parts: formidable.File[]; discard: () => Promise<unknown> }> {
   let uploadDir: string;
   try {
     uploadDir = incomingDir();
   } catch (err) {
     throw storageRefusal(err) ?? err;
   }
-  // Each part is written by a stream of ours: formidable 3 reports a part as received even when
-  // writing it failed (a disk that filled, or a folder that turned read-only, after its last
-  // chunk arrived), which would store a truncated file under the hash of the whole one.
   const writes = new Map<string, fs.WriteStream>();
   const form = formidable({
+    ...limits,
     uploadDir,
-    maxFileSize: limits.maxFileBytes,
-    maxTotalFileSize: limits.maxTotalBytes,
-    maxFiles: limits.maxFiles,
-    maxFields: 20,
-    allowEmptyFiles: true, // an empty file is kept and reported by the import, not refused here
-    minFileSize: 0,
     hashAlgorithm: 'sha256',
     fileWriteStreamHandler: (file) => {
       const filepath = (file as unknown as { filepath: string }).filepath;
@@ -52,20 +48,40 @@ export async function receiveUpload(request: Request): Promise<ReceivedFile[]> {
   const stream = Object.assign(Readable.fromWeb(request.body as WebReadableStream), {
     headers: Object.fromEntries(request.headers),
   });
-  let files: formidable.Files;
+  const discard = () => removeAll([...writes.keys()]);
   try {
-    [, files] = await form.parse(stream as never);
+    const [fields, files] = await form.parse(stream as never);
     await Promise.all([...writes.values()].map((w) => finished(w)));
+    return { fields, files, parts: Object.values(files).flat().filter((f): f is formidable.File => !!f), discard };
   } catch (err) {
     // Every part written so far, whole or not, goes before we answer.
     await Promise.all([...writes.values()].map((w) => finished(w.destroy()).catch(() => undefined)));
-    await removeAll([...writes.keys()]);
+    await discard();
     // formidable stops reading at its error, leaving the request paused when a disk write failed;
     // reading the rest (and dropping it) lets the client finish sending and see our answer.
     stream.resume();
-    throw describeRefusal(err, limits);
+    throw storageRefusal(err) ?? describe(err);
   }
-  const parts = Object.values(files).flat().filter((f): f is formidable.File => !!f);
+}
+
+/**
+ * Streams a multipart body to disk (receiveParts), then adopts each file into the store under
+ * its SHA-256. Limits answer 413 with what the limit is; a store that is full answers 507 and
+ * one that cannot be written 503. Nothing of a refused upload is kept.
+ */
+export async function receiveUpload(request: Request): Promise<ReceivedFile[]> {
+  if (!request.body || !request.headers.get('content-type')?.startsWith('multipart/form-data')) {
+    throw new AppError('invalid', 'Send the files as multipart/form-data, one part per file (field name "files").');
+  }
+  const limits = uploadLimits();
+  const { parts, discard } = await receiveParts(request, {
+    maxFileSize: limits.maxFileBytes,
+    maxTotalFileSize: limits.maxTotalBytes,
+    maxFiles: limits.maxFiles,
+    maxFields: 20,
+    allowEmptyFiles: true, // an empty file is kept and reported by the import, not refused here
+    minFileSize: 0,
+  }, (err) => describeRefusal(err, limits));
   if (parts.length === 0) throw new AppError('invalid', 'The upload holds no file.');
   const received: ReceivedFile[] = [];
   try {
@@ -77,7 +93,7 @@ export async function receiveUpload(request: Request): Promise<ReceivedFile[]> {
   } catch (err) {
     // Parts already adopted stay: they are whole and named by their hash (the same bytes sent
     // again are found there), and another upload of the same bytes may be relying on them.
-    await removeAll([...writes.keys()]);
+    await discard();
     throw storageRefusal(err) ?? err;
   }
   return received;
@@ -95,7 +111,7 @@ const STORAGE_REFUSALS: Record<StorageFault, () => AppError> = {
 };
 
 /** A full or unwritable store as the user is told it (the cause, with the store's path, is logged). */
-function storageRefusal(err: unknown): AppError | null {
+export function storageRefusal(err: unknown): AppError | null {
   const fault = fileStorageFault(err);
   if (!fault) return null;
   console.error(`Upload refused: the upload store at ${storeRoot()} is ${fault === 'full' ? 'full' : 'not writable'}`, err);
@@ -103,8 +119,6 @@ function storageRefusal(err: unknown): AppError | null {
 }
 
 function describeRefusal(err: unknown, limits: ReturnType<typeof uploadLimits>): AppError {
-  const storage = storageRefusal(err);
-  if (storage) return storage;
   const code = (err as { code?: number }).code;
   if (code === formidableErrors.biggerThanTotalMaxFileSize) {
     return new AppError('too_large', `The upload is larger than ${limits.maxTotalBytes / MB} MB in total. Send the files in smaller batches.`);

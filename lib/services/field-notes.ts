@@ -1,8 +1,6 @@
 import 'server-only';
 import fs from 'node:fs';
-import { Readable } from 'node:stream';
-import type { ReadableStream as WebReadableStream } from 'node:stream/web';
-import formidable, { errors as formidableErrors } from 'formidable';
+import { errors as formidableErrors } from 'formidable';
 import { Op, type Transaction } from 'sequelize';
 import {
   fieldPhotoFieldsSchema, PHOTO_MAX_BYTES, type FieldNoteInput, type FieldNoteKindCode, type PHOTO_TYPES,
@@ -14,7 +12,8 @@ import type { Role } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import { fieldIssues } from '@/lib/http/zod-issues';
 import { kickImportWorker } from '@/lib/server/import-worker';
-import { adopt, incomingDir, readStored } from '@/lib/server/upload-store';
+import { receiveParts, storageRefusal } from '@/lib/server/receive-upload';
+import { adopt, readStored } from '@/lib/server/upload-store';
 import { Area, FieldNote, Survey, Test, Trap, Upload, User } from '@/models';
 import { FIELD_NOTE_KINDS } from '@/models/FieldNote';
 import { recordAudit } from './audit';
@@ -229,27 +228,19 @@ export async function addFieldPhoto(actor: Actor, surveyId: number, trapId: numb
     throw new AppError('invalid', 'Send the photo as multipart/form-data with one file part named "photo".');
   }
   await openSurvey(surveyId);
-  const form = formidable({
-    uploadDir: incomingDir(), maxFileSize: PHOTO_MAX_BYTES, maxTotalFileSize: PHOTO_MAX_BYTES, maxFiles: 1,
-    maxFields: 5, maxFieldsSize: 64 * 1024, allowEmptyFiles: false, minFileSize: 1, hashAlgorithm: 'sha256',
-  });
-  const stream = Object.assign(Readable.fromWeb(request.body as WebReadableStream), { headers: Object.fromEntries(request.headers) });
-  let fields: formidable.Fields;
-  let files: formidable.Files;
-  try {
-    [fields, files] = await form.parse(stream as never);
-  } catch (err) {
+  const { fields, files, parts, discard } = await receiveParts(request, {
+    maxFileSize: PHOTO_MAX_BYTES, maxTotalFileSize: PHOTO_MAX_BYTES, maxFiles: 1, maxFields: 5, maxFieldsSize: 64 * 1024,
+    allowEmptyFiles: false, minFileSize: 1,
+  }, (err) => {
     const code = (err as { code?: number }).code;
     if (code === formidableErrors.biggerThanMaxFileSize || code === formidableErrors.biggerThanTotalMaxFileSize) {
-      throw new AppError('too_large', `A photo is at most ${PHOTO_MAX_BYTES / (1024 * 1024)} MB. Send a smaller one (most phones can share a reduced size).`);
+      return new AppError('too_large', `A photo is at most ${PHOTO_MAX_BYTES / (1024 * 1024)} MB. Send a smaller one (most phones can share a reduced size).`);
     }
-    if (code === formidableErrors.maxFilesExceeded) throw new AppError('invalid', 'Send one photo at a time.');
-    if (code === formidableErrors.smallerThanMinFileSize) throw new AppError('invalid', 'The photo is empty.');
-    throw new AppError('invalid', 'The photo upload could not be read; send it as multipart/form-data with a part named "photo".');
-  }
-  const parts = Object.values(files).flat().filter((f): f is formidable.File => !!f);
+    if (code === formidableErrors.maxFilesExceeded) return new AppError('invalid', 'Send one photo at a time.');
+    if (code === formidableErrors.smallerThanMinFileSize) return new AppError('invalid', 'The photo is empty.');
+    return new AppError('invalid', 'The photo upload could not be read; send it as multipart/form-data with a part named "photo".');
+  });
   const part = files.photo?.[0] ?? parts[0];
-  const discard = () => Promise.all(parts.map((p) => fs.promises.rm(p.filepath, { force: true })));
   if (!part) throw new AppError('invalid', 'The upload holds no photo: add a file part named "photo".');
   const type = imageTypeOf(await readHead(part.filepath));
   if (!type) {
@@ -265,7 +256,12 @@ export async function addFieldPhoto(actor: Actor, surveyId: number, trapId: numb
     throw new AppError('invalid', 'Invalid request body.', fieldIssues(parsed.error));
   }
   const sha256 = String(part.hash);
-  await adopt(part.filepath, sha256);
+  try {
+    await adopt(part.filepath, sha256);
+  } catch (err) {
+    await discard();
+    throw storageRefusal(err) ?? err;
+  }
   return insertNote(actor, surveyId, trapId, { ...parsed.data, photoSha256: sha256, photoType: type });
 }
 

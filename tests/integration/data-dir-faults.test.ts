@@ -13,6 +13,7 @@ import { kibOnTmpfs, startConfinedServer, type ConfinedServer } from '../support
 import { Client, DEMO, signedIn } from '../support/http';
 import { root, runDb, tempDb } from '../support/own-server';
 import { modelAFileFor, settled, upload, type FilePart } from '../support/uploads';
+import { photoForm, TINY_PNG } from './samples/field-notes';
 
 const STORE_FULL = "The server's upload store is full: its disk has no space left, so nothing of this upload was stored. "
   + "Free space on the store's disk (or ask your administrator to), then send the files again.";
@@ -149,6 +150,28 @@ describe('an upload store that is full or read-only', () => {
       .toEqual(files.map((f) => [f.name, 'processed', 1]));
     const stored = server.files(store);
     for (const [i, f] of files.entries()) expect(stored.get(storedAs(f))).toEqual({ size: sizes[i], sha256: sha256Of(f) });
+  });
+
+  it('refuses a field-note photo with 507 when the store fills while it streams in, and keeps nothing of it', async () => {
+    const trap = (await analyst.get(`/api/sites/${(await analyst.get('/api/sites')).body.items.find((s: { code: string }) => s.code === 'FV').id}/traps?status=in_service&pageSize=1`)).body.items[0];
+    // A PNG's signature and then 400 KB: judged a photo by its first bytes, larger than the room left.
+    const photo = Buffer.concat([TINY_PNG, Buffer.alloc(400 * 1024, 7)]);
+    const { free, block } = server.space(store);
+    const filler = path.join(store, 'filler');
+    server.inside('fallocate', '-l', String(free - 4 * block), filler);
+    const dbBefore = await snapshot(dbPath);
+    const storeBefore = server.files(store);
+    try {
+      const refused = await analyst.request('POST', `/api/surveys/${surveyId}/traps/${trap.id}/field-notes/photo`, photoForm(photo, 'outlet.png'));
+      expect(refused.status).toBe(507);
+      expect(refused.body.error).toEqual({ code: 'storage_full', message: STORE_FULL });
+      expect(server.files(store)).toEqual(storeBefore);
+      expect(await snapshot(dbPath)).toEqual(dbBefore);
+    } finally {
+      server.inside('rm', filler);
+    }
+    const kept = await analyst.request('POST', `/api/surveys/${surveyId}/traps/${trap.id}/field-notes/photo`, photoForm(photo, 'outlet.png'));
+    expect(kept.status).toBe(201);
   });
 });
 
