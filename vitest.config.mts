@@ -8,9 +8,6 @@ const alias = { '@': root };
 // These files test what only the SQLite installation has, and stay out of that run, each with why:
 const SQLITE_ONLY: Record<string, string> = {
   'tests/integration/backup.test.ts': "db:backup/db:restore copy the SQLite file with SQLite's backup API; PostgreSQL is backed up with pg_dump (README)",
-  // Not SQLite-specific in what it tests: its audit check opens the SQLite file with sqlite3; with
-  // that read through queryDb (tests/support/own-server.ts) it can leave this list.
-  'tests/integration/action-authorisation.test.ts': 'reads audit_events from the SQLite file directly (sqlite3), so on PostgreSQL it finds no file',
   'tests/integration/data-dir-faults.test.ts': 'fills the disk under the SQLite file and compares the file row by row (sqlite_master, rowid); a PostgreSQL server keeps its data elsewhere',
 };
 const onPostgres = Boolean(process.env.PLUMEWARD_DATABASE_URL);

@@ -5,11 +5,11 @@
 // any action is refused before it runs.
 import fs from 'node:fs';
 import path from 'node:path';
-import sqlite3 from 'sqlite3';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { roleMay, type Permission } from '@/lib/auth/permissions';
 import { ROLES, type Role } from '@/lib/domain/vocabulary';
 import { ERROR_STATUS, type ErrorCode } from '@/lib/http/errors';
+import { queryDb } from '../support/own-server';
 import { demoSites, newUser, signInAdmin, type SiteIds } from '../support/fixtures';
 import { baseUrl, Client } from '../support/http';
 import { builtActions, callAction, FlightError, pageUrl, type BuiltAction } from '../support/server-actions';
@@ -57,14 +57,7 @@ function expected(role: Role, action: Registered, where: 'own' | 'other'): 'ok' 
 
 /** Audit events written by one user after a given event id: every write an action makes leaves one. */
 function auditSince(afterId: number, userId: number): Promise<{ id: number; action: string }[]> {
-  const db = new sqlite3.Database(inject('dbPath'), sqlite3.OPEN_READONLY);
-  const sql = 'SELECT id, action FROM audit_events WHERE id > ? AND (? = 0 OR user_id = ?) ORDER BY id';
-  return new Promise((resolve, reject) =>
-    db.all(sql, [afterId, userId, userId], (err, rows) => {
-      db.close();
-      return err ? reject(err) : resolve(rows as { id: number; action: string }[]);
-    }),
-  );
+  return queryDb(inject('dbPath'), 'SELECT id, action FROM audit_events WHERE id > ? AND (? = 0 OR user_id = ?) ORDER BY id', [afterId, userId, userId]);
 }
 const lastAuditId = async () => (await auditSince(0, 0)).at(-1)?.id ?? 0;
 
