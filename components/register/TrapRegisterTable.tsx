@@ -4,12 +4,13 @@ import {
   createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState,
 } from '@tanstack/react-table';
 import Link from 'next/link';
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { useSearchParams } from 'next/navigation';
 import { useEffect, useMemo, useState } from 'react';
 import {
   CRITICALITY_LABELS, TRAP_STATUSES, TRAP_STATUS_LABELS, TRAP_TYPES, TRAP_TYPE_LABELS,
 } from '@/lib/domain/vocabulary';
 import type { TrapDto } from '@/lib/services/dto';
+import { useReplaceParams } from '../useReplaceParams';
 
 type Page = { items: TrapDto[]; total: number; page: number; pageSize: number };
 type Area = { id: number; name: string };
@@ -19,8 +20,6 @@ const PAGE_SIZE = 50;
 
 /** The register of one site: paged, sorted and filtered on the server; the URL holds the state. */
 export function TrapRegisterTable({ siteId, areas, canEdit }: { siteId: number; areas: Area[]; canEdit: boolean }) {
-  const router = useRouter();
-  const pathname = usePathname();
   const search = useSearchParams();
   const [data, setData] = useState<Page | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -32,17 +31,9 @@ export function TrapRegisterTable({ siteId, areas, canEdit }: { siteId: number; 
   const page = Math.max(1, Number(search.get('page') ?? 1) || 1);
   const queryString = search.toString();
 
-  function setParams(changes: Record<string, string | null>) {
-    // From the live URL, not the render's snapshot: a debounced search and a filter chosen
-    // meanwhile must not undo each other.
-    const next = new URLSearchParams(window.location.search);
-    for (const [key, value] of Object.entries(changes)) {
-      if (value) next.set(key, value);
-      else next.delete(key);
-    }
-    if (!('page' in changes)) next.delete('page');
-    router.replace(`${pathname}?${next.toString()}`, { scroll: false });
-  }
+  const replaceParams = useReplaceParams();
+  // A new filter or sort starts again at the first page.
+  const setParams = (changes: Record<string, string | null>) => replaceParams({ page: null, ...changes });
 
   // Debounce typing into the search box before it reaches the URL (and the server).
   useEffect(() => {

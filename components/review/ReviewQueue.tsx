@@ -1,12 +1,13 @@
 'use client';
 
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import { VERDICT_CODES, VERDICT_LABELS } from '@/lib/analysis/verdict-codes';
 import { TRAP_TYPES, TRAP_TYPE_LABELS } from '@/lib/domain/vocabulary';
 import type { ReviewItem, ReviewQueue as Queue, TestDetail } from '@/lib/services/review';
 import { TestPanel, type DecideAction } from './TestPanel';
 import { VerdictBadge } from './VerdictBadge';
+import { useReplaceParams } from '../useReplaceParams';
 
 const STATE_WORDS: Record<ReviewItem['state'], string> = {
   unreviewed: '○ to review', confirmed: '● confirmed', overridden: '◐ overridden', retest_pending: '↻ re-test asked',
@@ -21,7 +22,7 @@ export function ReviewQueue({ siteId, surveyId, areas, canDecide, timeZone }: {
   siteId: number; surveyId: number; areas: { id: number; name: string }[]; canDecide: boolean; timeZone: string;
 }) {
   const router = useRouter();
-  const pathname = usePathname();
+  const replaceParams = useReplaceParams();
   const search = useSearchParams();
   const [queue, setQueue] = useState<Queue | null>(null);
   const [selected, setSelected] = useState(0);
@@ -101,11 +102,8 @@ export function ReviewQueue({ siteId, surveyId, areas, canDecide, timeZone }: {
   }, [queue, item, detail, canDecide, decide, router, siteId]);
 
   function setFilter(key: string, value: string) {
-    const next = new URLSearchParams(window.location.search);
-    if (value) next.set(key, value);
-    else next.delete(key);
     setSelected(0);
-    router.replace(`${pathname}?${next}`, { scroll: false });
+    replaceParams({ [key]: value || null });
   }
 
   const c = queue?.counts;
