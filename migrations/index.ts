@@ -10,6 +10,8 @@ import * as m20261201030000 from './20261201030000-create-outcome-tables';
 import * as m20261201070000 from './20261201070000-add-test-list-indexes';
 import * as m20261201080000 from './20261201080000-add-test-loss-mode';
 import * as m20261201090000 from './20261201090000-add-upload-claims';
+import * as m20261201100000 from './20261201100000-add-survey-read-indexes';
+import * as m20261201100100 from './20261201100100-count-test-writes';
 
 export const migrations = [
   { name: '20261201000100-create-users-sites-memberships', ...m20261201000100 },
@@ -23,4 +25,6 @@ export const migrations = [
   { name: '20261201070000-add-test-list-indexes', ...m20261201070000 },
   { name: '20261201080000-add-test-loss-mode', ...m20261201080000 },
   { name: '20261201090000-add-upload-claims', ...m20261201090000 },
+  { name: '20261201100000-add-survey-read-indexes', ...m20261201100000 },
+  { name: '20261201100100-count-test-writes', ...m20261201100100 },
 ];

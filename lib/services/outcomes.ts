@@ -1,16 +1,18 @@
 import 'server-only';
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
 import { DEFAULT_PARAMS, resolveParams, type SeverityMode } from '@/lib/analysis/defaults';
 import { isVerdictCode, type VerdictCode } from '@/lib/analysis/verdict-codes';
-import { writeTransaction } from '@/lib/db';
+import { sequelize, writeTransaction } from '@/lib/db';
+import type { TrapStatus } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import { costOverrides, type CostSettings } from '@/lib/outcomes/cost-params';
 import { computeSurveyFigures, type SurveyFigures, type TrapOutcomeInput } from '@/lib/outcomes/survey-figures';
 import type { CostSettingsInput } from '@/lib/validation/cost-settings';
-import { Area, Site, SiteCostSettings, Survey, Test, Trap, TrapVerdict, WorkOrder } from '@/models';
+import { Site, SiteCostSettings, Survey, WorkOrder } from '@/models';
 import { recordAudit } from './audit';
-import { reviewState } from './review';
+import { DerivedCache, surveyDataVersion } from './derived-cache';
+import { latestTrapTests, reviewState, surveyDecisions } from './review';
 
 /** The site's cost settings, or the analysis defaults (no price: cost unknown until an admin sets one). */
 export async function getCostSettings(siteId: number): Promise<CostSettings & { isDefault: boolean }> {
@@ -44,39 +46,33 @@ export async function updateCostSettings(actor: Actor, siteId: number, input: Co
   return getCostSettings(siteId);
 }
 
+type SiteTrapRow = {
+  id: number; tag: string; area_id: number | null; area_name: string | null; status: TrapStatus; criticality: string;
+  application: string | null; pressure_barg: number; size_dn: number | null; orifice_mm: number | null;
+};
+
 /** Every trap of the site with its verdict in the survey: the analyst's where decided, else the suggestion of its latest trap-point test. */
 async function outcomeInputs(survey: Survey): Promise<TrapOutcomeInput[]> {
-  const [traps, tests, decisions] = await Promise.all([
-    Trap.findAll({ where: { siteId: survey.siteId }, include: [{ model: Area, as: 'area', attributes: ['name'] }] }),
-    Test.findAll({
-      where: { surveyId: survey.id, role: 'trap', matchStatus: 'matched' },
-      attributes: ['id', 'trapId', 'startedAt', 'createdAt', 'suggestedVerdict', 'lossMode'],
-      raw: true,
-    }) as unknown as Promise<Pick<Test, 'id' | 'trapId' | 'startedAt' | 'createdAt' | 'suggestedVerdict' | 'lossMode'>[]>,
-    TrapVerdict.findAll({ where: { surveyId: survey.id } }),
+  const [traps, latest, decisions] = await Promise.all([
+    sequelize.query<SiteTrapRow>(
+      `SELECT tr.id, tr.tag, tr.area_id, a.name AS area_name, tr.status, tr.criticality, tr.application, tr.pressure_barg, tr.size_dn, tr.orifice_mm
+       FROM traps tr LEFT JOIN areas a ON a.id = tr.area_id WHERE tr.site_id = :siteId ORDER BY tr.id`,
+      { replacements: { siteId: survey.siteId }, type: QueryTypes.SELECT },
+    ),
+    latestTrapTests(survey.id),
+    surveyDecisions(survey.id),
   ]);
-  // Raw rows (no model instances: surveys hold thousands of tests) may carry dates as text.
-  for (const t of tests) {
-    t.startedAt = new Date(t.startedAt);
-    t.createdAt = new Date(t.createdAt);
-  }
-  const latest = new Map<number, (typeof tests)[number]>();
-  for (const t of tests) {
-    const seen = latest.get(t.trapId!);
-    if (!seen || t.startedAt > seen.startedAt) latest.set(t.trapId!, t);
-  }
-  const decisionOf = new Map(decisions.map((d) => [d.trapId, d]));
   return traps.map((trap) => {
     const test = latest.get(trap.id);
-    const d = decisionOf.get(trap.id);
+    const d = decisions.get(trap.id);
     const state = test ? reviewState(d, test) : d?.state === 'retest' ? 'retest_pending' : 'unreviewed';
     const decided = state === 'confirmed' || state === 'overridden';
     const suggested = isVerdictCode(test?.suggestedVerdict) ? (test!.suggestedVerdict as VerdictCode) : null;
     const lossMode = (test?.lossMode ?? null) as SeverityMode | null;
     return {
-      trapId: trap.id, tag: trap.tag, areaId: trap.areaId ?? null, areaName: trap.area?.name ?? null, status: trap.status,
-      criticality: trap.criticality, application: trap.application ?? null, pressureBarg: trap.pressureBarg, sizeDn: trap.sizeDn ?? null,
-      orificeMm: trap.orificeMm ?? null, verdict: test ? (decided && isVerdictCode(d!.verdict) ? (d!.verdict as VerdictCode) : suggested) : null,
+      trapId: trap.id, tag: trap.tag, areaId: trap.area_id ?? null, areaName: trap.area_name ?? null, status: trap.status,
+      criticality: trap.criticality, application: trap.application ?? null, pressureBarg: trap.pressure_barg, sizeDn: trap.size_dn ?? null,
+      orificeMm: trap.orifice_mm ?? null, verdict: test ? (decided && isVerdictCode(d!.verdict) ? (d!.verdict as VerdictCode) : suggested) : null,
       decided, retestPending: state === 'retest_pending', suggestedLossMode: lossMode, suggestedVerdict: suggested,
     };
   });
@@ -90,7 +86,10 @@ export type SurveySummary = {
   figures: SurveyFigures;
 };
 
-/** A survey's figures: frozen as published, or computed now from the current settings (a draft follows them). */
+/** A draft's figures over its site's 20,000 traps, kept while its data and the settings stand (lib/services/derived-cache.ts). */
+const draftFigures = new DerivedCache<SurveyFigures>(8);
+
+/** A survey's figures: frozen as published, or computed from the current settings (a draft follows them). */
 export async function surveySummary(surveyId: number): Promise<SurveySummary> {
   const survey = await Survey.findByPk(surveyId);
   if (!survey) throw notFound('survey');
@@ -101,8 +100,9 @@ export async function surveySummary(surveyId: number): Promise<SurveySummary> {
   if (survey.status === 'published' && survey.publishedSummary && survey.publishedSettings) {
     return { survey: head, frozen: true, settings: survey.publishedSettings as unknown as CostSettings, figures: survey.publishedSummary as unknown as SurveyFigures };
   }
-  const settings = await getCostSettings(survey.siteId);
-  const figures = computeSurveyFigures(await outcomeInputs(survey), resolveParams(costOverrides(settings)));
+  const [version, settings] = await Promise.all([surveyDataVersion(surveyId), getCostSettings(survey.siteId)]);
+  const figures = await draftFigures.get(String(surveyId), { ...version, key: `${version.key}:${JSON.stringify(settings)}` },
+    async () => computeSurveyFigures(await outcomeInputs(survey), resolveParams(costOverrides(settings))));
   return { survey: head, frozen: false, settings, figures };
 }
 

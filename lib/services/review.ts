@@ -1,12 +1,13 @@
 import 'server-only';
-import { Op } from 'sequelize';
+import { Op, QueryTypes } from 'sequelize';
 import type { Actor } from '@/lib/auth/actor';
 import { isVerdictCode, severityRank, type VerdictCode } from '@/lib/analysis/verdict-codes';
-import { writeTransaction } from '@/lib/db';
+import { sequelize, writeTransaction } from '@/lib/db';
 import type { TrapType } from '@/lib/domain/vocabulary';
 import { AppError, notFound } from '@/lib/http/errors';
 import { Area, Survey, Test, Trap, TrapVerdict, User } from '@/models';
 import { auditTrail, recordAudit } from './audit';
+import { DerivedCache, surveyDataVersion } from './derived-cache';
 
 export type ReviewState = 'unreviewed' | 'confirmed' | 'overridden' | 'retest_pending';
 
@@ -15,10 +16,10 @@ export type QueueFilter = {
   verdict?: VerdictCode; reviewed?: 'yes' | 'no' | 'retest';
 };
 
-type LatestTest = Pick<Test, 'id' | 'trapId' | 'startedAt' | 'createdAt' | 'suggestedVerdict' | 'confidence' | 'lossKgPerHour' | 'meanLevelDb' | 'dutyCycle'>;
-
 /** A decision stands until a re-test is asked for; a test made after that request is reviewed in turn. */
-export function reviewState(decision: TrapVerdict | undefined, latest: { createdAt: Date }): ReviewState {
+export function reviewState(
+  decision: Pick<TrapVerdict, 'state' | 'retestRequestedAt'> | undefined, latest: { createdAt: Date },
+): ReviewState {
   if (!decision) return 'unreviewed';
   if (decision.state === 'retest') {
     return decision.retestRequestedAt && latest.createdAt > decision.retestRequestedAt ? 'unreviewed' : 'retest_pending';
@@ -27,68 +28,132 @@ export function reviewState(decision: TrapVerdict | undefined, latest: { created
 }
 
 const rankOf = (code: string | null) => (isVerdictCode(code) ? severityRank(code) : 99);
+const byTag = new Intl.Collator().compare;
+/** Raw rows carry dates as text on SQLite and as Date on PostgreSQL. */
+const dateOf = (v: Date | string | null) => (v === null ? null : new Date(v));
+
+/** A trap's latest trap-point test in a survey (by start; the first stored of equal starts) and how many it has. */
+export type LatestTest = {
+  trapId: number; testId: number; testCount: number; createdAt: Date; suggestedVerdict: string | null; confidence: string | null;
+  lossKgPerHour: number | null; meanLevelDb: number | null; dutyCycle: number | null; lossMode: string | null;
+};
+
+type LatestRow = {
+  trap_id: number; n: number | string; test_id: number; created_at: Date | string; suggested_verdict: string | null; confidence: string | null;
+  loss_kg_per_hour: number | null; mean_level_db: number | null; duty_cycle: number | null; loss_mode: string | null;
+};
 
 /**
- * Every trap tested in a survey, worst first (suggested verdict severity, then estimated loss),
- * with where its review stands. A survey holds at most a few thousand traps, so the queue is
- * assembled in memory from indexed reads of the columns it needs.
+ * Each trap's latest matched trap-point test of a survey, with its count of them. The database
+ * groups the survey's tests by trap from the index tests_survey_role_trap and reads only the
+ * latest row of each. `extra` adds columns of joined tables (aliases `tr` for the trap, `a` for its area).
  */
-export async function reviewQueue(surveyId: number, f: QueueFilter) {
-  const tests = (await Test.findAll({
-    where: { surveyId, role: 'trap', matchStatus: 'matched', ...(f.uploadId ? { uploadId: f.uploadId } : {}) },
-    attributes: ['id', 'trapId', 'startedAt', 'createdAt', 'suggestedVerdict', 'confidence', 'lossKgPerHour', 'meanLevelDb', 'dutyCycle'],
-    raw: true,
-  })) as unknown as LatestTest[];
-  // Raw rows (no model instances: surveys hold thousands of tests) may carry dates as text.
-  for (const t of tests) {
-    t.startedAt = new Date(t.startedAt);
-    t.createdAt = new Date(t.createdAt);
+async function latestTestRows<X>(surveyId: number, uploadId: number | undefined, extra: { columns: string; joins: string } = { columns: '', joins: '' }) {
+  const match = (t: string) => `${t}survey_id = :surveyId AND ${t}role = 'trap' AND ${t}match_status = 'matched'${uploadId ? ` AND ${t}upload_id = :uploadId` : ''}`;
+  // A LEFT JOIN keeps SQLite reading the groups first and looking up one row each; every group has its row.
+  const rows = await sequelize.query<LatestRow & X>(
+    `SELECT c.trap_id, c.n, t.id AS test_id, t.created_at, t.suggested_verdict, t.confidence, t.loss_kg_per_hour,
+            t.mean_level_db, t.duty_cycle, t.loss_mode${extra.columns}
+     FROM (SELECT trap_id, MAX(started_at) AS latest, COUNT(*) AS n FROM tests WHERE ${match('')} AND trap_id IS NOT NULL GROUP BY trap_id) c
+     LEFT JOIN tests t ON ${match('t.')} AND t.trap_id = c.trap_id AND t.started_at = c.latest${extra.joins}`,
+    { replacements: { surveyId, uploadId: uploadId ?? null }, type: QueryTypes.SELECT },
+  );
+  const latest = new Map<number, LatestRow & X>();
+  for (const r of rows) {
+    const seen = latest.get(r.trap_id);
+    if (!seen || r.test_id < seen.test_id) latest.set(r.trap_id, r);
   }
-  const latest = new Map<number, LatestTest>();
-  const testCount = new Map<number, number>();
-  for (const t of tests) {
-    const id = t.trapId!;
-    testCount.set(id, (testCount.get(id) ?? 0) + 1);
-    const seen = latest.get(id);
-    if (!seen || t.startedAt > seen.startedAt) latest.set(id, t);
-  }
-  const trapIds = [...latest.keys()];
-  const [traps, decisions, references] = await Promise.all([
-    Trap.findAll({ where: { id: { [Op.in]: trapIds } }, include: [{ model: Area, as: 'area', attributes: ['name'] }] }),
-    TrapVerdict.findAll({ where: { surveyId }, include: [{ model: User, as: 'decider', attributes: ['name'] }] }),
-    Test.findAll({ where: { surveyId, role: 'reference', trapId: { [Op.in]: trapIds } }, attributes: ['trapId'] }),
+  return latest;
+}
+
+const latestOf = (r: LatestRow): LatestTest => ({
+  trapId: r.trap_id, testId: r.test_id, testCount: Number(r.n), createdAt: new Date(r.created_at), suggestedVerdict: r.suggested_verdict,
+  confidence: r.confidence, lossKgPerHour: r.loss_kg_per_hour, meanLevelDb: r.mean_level_db, dutyCycle: r.duty_cycle, lossMode: r.loss_mode,
+});
+
+/** Each trap's latest trap-point test of a survey, by trap id. */
+export async function latestTrapTests(surveyId: number): Promise<Map<number, LatestTest>> {
+  return new Map([...(await latestTestRows(surveyId, undefined)).values()].map((r) => [r.trap_id, latestOf(r)]));
+}
+
+export type SurveyDecision = Pick<TrapVerdict, 'state' | 'verdict' | 'reason'> & {
+  trapId: number; decidedBy: number | null; decidedAt: Date | null; retestRequestedAt: Date | null;
+};
+
+/** The analyst's decisions of a survey, by trap id. */
+export async function surveyDecisions(surveyId: number): Promise<Map<number, SurveyDecision>> {
+  const rows = (await TrapVerdict.findAll({
+    where: { surveyId }, attributes: ['trapId', 'state', 'verdict', 'reason', 'decidedBy', 'decidedAt', 'retestRequestedAt'], raw: true,
+  })) as unknown as (Omit<SurveyDecision, 'decidedAt' | 'retestRequestedAt'> & { decidedAt: Date | string | null; retestRequestedAt: Date | string | null })[];
+  return new Map(rows.map((d) => [d.trapId, { ...d, decidedAt: dateOf(d.decidedAt), retestRequestedAt: dateOf(d.retestRequestedAt) }]));
+}
+
+type TrapColumns = { tag: string; area_id: number | null; area_name: string | null; trap_type: TrapType; pressure_barg: number; criticality: string };
+
+/** Every trap tested in the survey (of the upload), sorted worst first, with its review state; who decided is an id. */
+async function queueOf(surveyId: number, uploadId: number | undefined) {
+  const [latest, decisions, references] = await Promise.all([
+    latestTestRows<TrapColumns>(surveyId, uploadId, {
+      columns: ', tr.tag, tr.area_id, a.name AS area_name, tr.trap_type, tr.pressure_barg, tr.criticality',
+      joins: ' JOIN traps tr ON tr.id = c.trap_id LEFT JOIN areas a ON a.id = tr.area_id',
+    }),
+    surveyDecisions(surveyId),
+    // Without DISTINCT, which would lead SQLite to walk tests_survey_trap and read every row for its role.
+    sequelize.query<{ trap_id: number | null }>(
+      "SELECT trap_id FROM tests WHERE survey_id = :surveyId AND role = 'reference'",
+      { replacements: { surveyId }, type: QueryTypes.SELECT },
+    ),
   ]);
-  const decisionOf = new Map(decisions.map((d) => [d.trapId, d]));
-  const withReference = new Set(references.map((r) => r.trapId));
-  let items = traps.map((trap) => {
-    const t = latest.get(trap.id)!;
-    const d = decisionOf.get(trap.id);
+  const withReference = new Set(references.map((r) => r.trap_id));
+  const items = [...latest.values()].map((r) => {
+    const t = latestOf(r);
+    const d = decisions.get(t.trapId);
     const state = reviewState(d, t);
     return {
-      trapId: trap.id, tag: trap.tag, areaId: trap.areaId ?? null, areaName: trap.area?.name ?? null, trapType: trap.trapType,
-      pressureBarg: trap.pressureBarg, criticality: trap.criticality, latestTestId: t.id, testCount: testCount.get(trap.id) ?? 0,
-      hasReference: withReference.has(trap.id), suggested: t.suggestedVerdict, confidence: t.confidence,
+      trapId: t.trapId, tag: r.tag, areaId: r.area_id ?? null, areaName: r.area_name ?? null, trapType: r.trap_type,
+      pressureBarg: r.pressure_barg, criticality: r.criticality, latestTestId: t.testId, testCount: t.testCount,
+      hasReference: withReference.has(t.trapId), suggested: t.suggestedVerdict, confidence: t.confidence,
       lossKgPerHour: t.lossKgPerHour, meanLevelDb: t.meanLevelDb, dutyCycle: t.dutyCycle, state,
       verdict: state === 'confirmed' || state === 'overridden' ? d!.verdict : null,
-      reason: d?.reason ?? null, decidedBy: (d as TrapVerdict & { decider?: User })?.decider?.name ?? null,
-      decidedAt: d?.decidedAt?.toISOString() ?? null,
+      reason: d?.reason ?? null, decidedById: d?.decidedBy ?? null, decidedAt: d?.decidedAt?.toISOString() ?? null,
     };
   });
+  items.sort((a, b) => rankOf(a.suggested) - rankOf(b.suggested) || (b.lossKgPerHour ?? 0) - (a.lossKgPerHour ?? 0) || byTag(a.tag, b.tag));
   const counts = {
     traps: items.length,
     reviewed: items.filter((i) => i.state === 'confirmed' || i.state === 'overridden').length,
     retestPending: items.filter((i) => i.state === 'retest_pending').length,
     unreviewed: items.filter((i) => i.state === 'unreviewed').length,
   };
+  return { items, counts };
+}
+
+const queues = new DerivedCache<Awaited<ReturnType<typeof queueOf>>>(8);
+
+/**
+ * Every trap tested in a survey, worst first (suggested verdict severity, then estimated loss),
+ * with where its review stands. The sorted queue over a survey's traps (20,000 of them) is kept
+ * while the survey's data stands (lib/services/derived-cache.ts); each request filters and pages it.
+ */
+export async function reviewQueue(surveyId: number, f: QueueFilter) {
+  const version = await surveyDataVersion(surveyId);
+  const queue = await queues.get(`${surveyId}:${f.uploadId ?? ''}`, version, () => queueOf(surveyId, f.uploadId));
+  let items = queue.items;
   if (f.areaId) items = items.filter((i) => i.areaId === f.areaId);
   if (f.trapType) items = items.filter((i) => i.trapType === f.trapType);
   if (f.verdict) items = items.filter((i) => (i.verdict ?? i.suggested) === f.verdict);
   if (f.reviewed === 'yes') items = items.filter((i) => i.state === 'confirmed' || i.state === 'overridden');
   if (f.reviewed === 'no') items = items.filter((i) => i.state === 'unreviewed');
   if (f.reviewed === 'retest') items = items.filter((i) => i.state === 'retest_pending');
-  items.sort((a, b) => rankOf(a.suggested) - rankOf(b.suggested) || (b.lossKgPerHour ?? 0) - (a.lossKgPerHour ?? 0) || a.tag.localeCompare(b.tag));
-  const total = items.length;
-  return { items: items.slice((f.page - 1) * f.pageSize, f.page * f.pageSize), total, page: f.page, pageSize: f.pageSize, counts };
+  const page = items.slice((f.page - 1) * f.pageSize, f.page * f.pageSize);
+  const deciders = [...new Set(page.map((i) => i.decidedById).filter((id): id is number => id !== null))];
+  const names = new Map(deciders.length
+    ? ((await User.findAll({ where: { id: { [Op.in]: deciders } }, attributes: ['id', 'name'], raw: true })) as { id: number; name: string }[]).map((u) => [u.id, u.name])
+    : []);
+  return {
+    items: page.map(({ decidedById, decidedAt, ...i }) => ({ ...i, decidedBy: decidedById === null ? null : names.get(decidedById) ?? null, decidedAt })),
+    total: items.length, page: f.page, pageSize: f.pageSize, counts: queue.counts,
+  };
 }
 export type ReviewQueue = Awaited<ReturnType<typeof reviewQueue>>;
 export type ReviewItem = ReviewQueue['items'][number];

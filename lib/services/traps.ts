@@ -25,13 +25,11 @@ export async function listTraps(siteId: number, query: TrapListQuery) {
     query.sort === 'area'
       ? [[{ model: Area, as: 'area' }, 'name', dir], ['tag', 'ASC']]
       : [[query.sort, dir], ['tag', 'ASC']];
-  const { rows, count } = await Trap.findAndCountAll({
-    where,
-    include: [{ model: Area, as: 'area', attributes: ['id', 'name'] }],
-    order,
-    limit: query.pageSize,
-    offset: (query.page - 1) * query.pageSize,
-  });
+  // Counted without the area join: a trap has at most one area, and the count reads one index.
+  const [rows, count] = await Promise.all([
+    Trap.findAll({ where, include: [{ model: Area, as: 'area', attributes: ['id', 'name'] }], order, limit: query.pageSize, offset: (query.page - 1) * query.pageSize }),
+    Trap.count({ where }),
+  ]);
   return { items: rows.map(trapDto), total: count, page: query.page, pageSize: query.pageSize };
 }
 export type TrapPage = Awaited<ReturnType<typeof listTraps>>;

@@ -1,0 +1,124 @@
+// The review queue and a draft's figures are kept between requests while the data under them
+// stands (lib/services/derived-cache.ts). Each write below is made once the kept answer is in use,
+// and must show in the very next answer: a verdict decided, a test imported, a trap renamed, an
+// area renamed, a test removed behind the app's back; and the test list's total with them.
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { signInAdmin } from '../support/fixtures';
+import { Client, unique } from '../support/http';
+import { queryDb as query } from '../support/own-server';
+import { modelAFileFor, settled, upload } from '../support/uploads';
+
+// Longer than SETTLE_MS (lib/services/derived-cache.ts), after which a computed answer is kept.
+const QUIET_MS = 2500;
+const queryDb = <T>(sql: string, params: unknown[] = []) => query<T>(inject('dbPath'), sql, params);
+
+type Item = { trapId: number; tag: string; criticality: string; areaName: string | null; latestTestId: number; testCount: number; state: string; verdict: string | null; suggested: string | null };
+type Summary = { figures: { total: { tested: number; decided: number }; byArea: { areaName: string; tested: number }[] } };
+
+describe('derived answers stay fresh', () => {
+  let admin: Client;
+  let surveyId: number;
+  let siteId: number;
+  let areaId: number;
+  const tags = [unique('DF-A'), unique('DF-B'), unique('DF-C')];
+  const queue = async () => {
+    const res = await admin.get(`/api/surveys/${surveyId}/review-queue`);
+    expect(res.status).toBe(200);
+    return res.body as { items: Item[]; total: number; counts: Record<string, number> };
+  };
+  const summary = async () => {
+    const res = await admin.get(`/api/surveys/${surveyId}/summary`);
+    expect(res.status).toBe(200);
+    return res.body as Summary;
+  };
+  const testTotal = async () => (await admin.get(`/api/sites/${siteId}/tests?surveyId=${surveyId}&pageSize=1`)).body.total as number;
+  const item = async (tag: string) => (await queue()).items.find((i) => i.tag === tag);
+  /** Lets the data go quiet, so the next answers are kept, and asks once to keep them. */
+  const keep = async () => {
+    await new Promise((r) => setTimeout(r, QUIET_MS));
+    await queue();
+    await summary();
+    await testTotal();
+  };
+
+  beforeAll(async () => {
+    admin = await signInAdmin();
+    // A site of its own: writes of other test files to a shared site would move its version.
+    const site = (await admin.post('/api/sites', {
+      name: unique('Freshness site'), code: `DF${Date.now().toString(36).slice(-6).toUpperCase()}`, timeZone: 'Europe/Berlin', currency: 'EUR', unitSystem: 'si',
+    })).body;
+    siteId = site.id;
+    areaId = (await admin.post(`/api/sites/${siteId}/areas`, { name: 'Boiler house' })).body.id;
+    for (const tag of tags) {
+      const res = await admin.post(`/api/sites/${siteId}/traps`, { tag, areaId, trapType: 'thermodynamic_disc', pressureBarg: 10, sizeDn: 15 });
+      expect(res.status).toBe(201);
+    }
+    surveyId = (await admin.post(`/api/sites/${siteId}/surveys`, { name: unique('Freshness survey'), startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' })).body.id;
+    const done = await settled(admin, (await upload(admin, surveyId, [modelAFileFor(tags[0]), modelAFileFor(tags[1])])).body.id);
+    expect(done.status).toBe('done');
+  });
+
+  it('answers from what it kept while nothing it tracks has changed', async () => {
+    await keep();
+    const before = await item(tags[0]);
+    expect(before).toMatchObject({ testCount: 1, state: 'unreviewed', criticality: 'normal' });
+    // A raw UPDATE of a trap that leaves its updated_at alone is no write the version can see: the
+    // kept answer stands, which shows the answers below come from the kept queue unless a write moved it.
+    await queryDb('UPDATE traps SET criticality = ? WHERE id = ?', ['high', before!.trapId]);
+    try {
+      expect((await item(tags[0]))!.criticality).toBe('normal');
+    } finally {
+      await queryDb('UPDATE traps SET criticality = ? WHERE id = ?', ['normal', before!.trapId]);
+    }
+  });
+
+  it('shows a confirmed verdict in the very next queue and figures', async () => {
+    await keep();
+    const target = (await item(tags[0]))!;
+    const decidedBefore = (await summary()).figures.total.decided;
+    const res = await admin.post(`/api/surveys/${surveyId}/verdicts`, { trapId: target.trapId, action: 'confirm', testId: target.latestTestId });
+    expect(res.status).toBe(200);
+    expect(await item(tags[0])).toMatchObject({ state: 'confirmed', verdict: target.suggested });
+    expect((await queue()).counts.reviewed).toBe(1);
+    expect((await summary()).figures.total.decided).toBe(decidedBefore + 1);
+  });
+
+  it('shows an imported test in the very next queue and figures', async () => {
+    await keep();
+    expect(await item(tags[2])).toBeUndefined();
+    const testedBefore = (await summary()).figures.total.tested;
+    expect(await testTotal()).toBe(2);
+    const done = await settled(admin, (await upload(admin, surveyId, [modelAFileFor(tags[2])])).body.id);
+    expect(done.status).toBe('done');
+    expect(await item(tags[2])).toMatchObject({ testCount: 1, state: 'unreviewed' });
+    expect((await summary()).figures.total.tested).toBe(testedBefore + 1);
+    expect(await testTotal()).toBe(3);
+  });
+
+  it('shows a renamed trap and a renamed area in the very next answers', async () => {
+    await keep();
+    const target = (await item(tags[1]))!;
+    const renamed = `${tags[1]}-R`;
+    expect((await admin.patch(`/api/traps/${target.trapId}`, { tag: renamed })).status).toBe(200);
+    expect((await queue()).items.map((i) => i.tag)).toContain(renamed);
+    expect(await item(tags[1])).toBeUndefined();
+
+    await keep();
+    expect((await admin.patch(`/api/areas/${areaId}`, { name: 'Boiler house east' })).status).toBe(200);
+    expect((await item(renamed))!.areaName).toBe('Boiler house east');
+    expect((await summary()).figures.byArea.map((a) => a.areaName)).toEqual(['Boiler house east']);
+  });
+
+  it('drops a removed test from the very next answers, though no newer stamp was written', async () => {
+    await keep();
+    const target = (await item(tags[2]))!;
+    const testedBefore = (await summary()).figures.total.tested;
+    // As a file read again with no test in it leaves it (lib/server/import-batch.ts): no stamp moves,
+    // the database's count of writes to the survey's tests does.
+    await queryDb('DELETE FROM test_series WHERE test_id = ?', [target.latestTestId]);
+    await queryDb('DELETE FROM tests WHERE id = ?', [target.latestTestId]);
+    expect(await item(tags[2])).toBeUndefined();
+    expect((await summary()).figures.total.tested).toBe(testedBefore - 1);
+    expect(await testTotal()).toBe(2);
+  });
+});
