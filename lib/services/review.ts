@@ -128,7 +128,8 @@ async function queueOf(surveyId: number, uploadId: number | undefined) {
   return { items, counts };
 }
 
-const queues = new DerivedCache<Awaited<ReturnType<typeof queueOf>>>(8);
+// A queue of 20,000 traps is some 10 MB of objects: a few surveys at a time.
+const queues = new DerivedCache<Awaited<ReturnType<typeof queueOf>>>(4);
 
 /**
  * Every trap tested in a survey, worst first (suggested verdict severity, then estimated loss),
