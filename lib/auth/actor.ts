@@ -22,15 +22,16 @@ export type Actor = {
   tokenId?: number;
 };
 
-/** The actor of a session cookie; null when signed out, disabled or deleted. */
+/**
+ * The actor of a session cookie; null when signed out, expired, disabled or deleted. The session
+ * callback (lib/auth/options.ts) has just read the user, role and sites from the database for
+ * this very call, so they are taken from it rather than read a second time.
+ */
 export async function actorFromSession(): Promise<Actor | null> {
-  const session = await getServerSession(authOptions);
-  const userId = Number(session?.user?.id);
-  if (!Number.isInteger(userId) || userId <= 0) return null;
-  const found = await activeUser(userId);
-  if (!found) return null;
-  const { user, siteIds } = found;
-  return { userId, name: user.name, email: user.email, role: user.role, via: 'session', readOnly: false, siteIds };
+  const user = (await getServerSession(authOptions))?.user;
+  const userId = Number(user?.id);
+  if (!user || !Number.isInteger(userId) || userId <= 0 || !user.role || !user.siteIds) return null;
+  return { userId, name: user.name ?? '', email: user.email ?? '', role: user.role, via: 'session', readOnly: false, siteIds: user.siteIds };
 }
 
 async function actorFromToken(secret: string): Promise<Actor> {
