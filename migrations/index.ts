@@ -12,6 +12,7 @@ import * as m20261201080000 from './20261201080000-add-test-loss-mode';
 import * as m20261201090000 from './20261201090000-add-upload-claims';
 import * as m20261201100000 from './20261201100000-add-survey-read-indexes';
 import * as m20261201100100 from './20261201100100-count-test-writes';
+import * as m20261202090000 from './20261202090000-count-writes-by-subject';
 
 export const migrations = [
   { name: '20261201000100-create-users-sites-memberships', ...m20261201000100 },
@@ -27,4 +28,5 @@ export const migrations = [
   { name: '20261201090000-add-upload-claims', ...m20261201090000 },
   { name: '20261201100000-add-survey-read-indexes', ...m20261201100000 },
   { name: '20261201100100-count-test-writes', ...m20261201100100 },
+  { name: '20261202090000-count-writes-by-subject', ...m20261202090000 },
 ];

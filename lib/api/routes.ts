@@ -364,8 +364,13 @@ const CORE_ROUTES = {
   }),
   surveySummary: defineRoute({
     method: 'GET', path: '/api/surveys/{surveyId}/summary', permission: 'survey.read', tag: 'Outcomes',
-    summary: 'Coverage, verdict counts, failure rate, steam lost, cost and CO2 per year, in total and by area, and the costliest failures; with the settings that produced them.',
-    params: z.object({ surveyId: idSchema }), response: z.record(z.string(), z.unknown()),
+    summary: 'Coverage, verdict counts, failure rate, steam lost, cost and CO2 per year, in total and by area, and the costliest failures (figures.failures, of figures.failureCount); with the settings that produced them.',
+    params: z.object({ surveyId: idSchema }),
+    query: z.object({
+      failures: z.union([z.literal('all'), z.coerce.number().int().min(0).max(1000)]).default(20)
+        .describe('how many of the costliest failures to list: 0 to 1000, or "all" (the reports list them all)'),
+    }),
+    response: z.record(z.string(), z.unknown()),
   }),
   publishSurvey: defineRoute({
     method: 'POST', path: '/api/surveys/{surveyId}/publish', permission: 'report.publish', tag: 'Outcomes',

@@ -3,7 +3,9 @@ import type { z } from 'zod';
 import { actorFromRequest, type Actor } from '@/lib/auth/actor';
 import { assertPermission, assertSiteAccess } from '@/lib/auth/guard';
 import type { RouteSpec } from '@/lib/api/spec';
+import type { DataVersion } from '@/lib/services/derived-cache';
 import { AppError, toErrorBody } from './errors';
+import { keptReply } from './kept-replies';
 import { fieldIssues } from './zod-issues';
 
 type Out<T> = T extends z.ZodType ? z.output<T> : undefined;
@@ -22,6 +24,9 @@ type SiteResolver<S extends RouteSpec> = (input: {
   params: Out<S['params']>;
   query: Out<S['query']>;
 }) => Promise<number | null | undefined> | number | null | undefined;
+
+/** The version of the data a GET's reply is made from, when the reply may be kept; null: make it afresh. */
+type KeepVersion<S extends RouteSpec> = (input: { params: Out<S['params']>; query: Out<S['query']> }) => Promise<DataVersion | null>;
 
 const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 
@@ -62,10 +67,15 @@ async function readJson(request: Request): Promise<unknown> {
 /**
  * The one wrapper every API route handler goes through:
  * authenticate (401) → role and token scope (403) → record's site (404) → validate (422) → handle.
+ *
+ * `keep` lets a GET's reply be kept and sent again while the data under it stands
+ * (lib/http/kept-replies.ts); such a reply must depend on its parameters, query and that data
+ * alone — never on who asks, who is checked above all the same. A client that has the reply
+ * already (If-None-Match) gets 304.
  */
 export function apiRoute<S extends RouteSpec>(
   spec: S,
-  impl: { site?: SiteResolver<S>; handle: (ctx: RouteContext<S>) => Promise<unknown> },
+  impl: { site?: SiteResolver<S>; keep?: KeepVersion<S>; handle: (ctx: RouteContext<S>) => Promise<unknown> },
 ) {
   return async (request: Request, context: { params: Promise<Record<string, string>> }): Promise<Response> => {
     try {
@@ -87,7 +97,19 @@ export function apiRoute<S extends RouteSpec>(
       const body = (spec.body
         ? parseOr(spec.body, await readJson(request), (e) => new AppError('invalid', 'Invalid request body.', fieldIssues(e)))
         : undefined) as RouteContext<S>['body'];
-      const result = await impl.handle({ actor, params, query, body, siteId, request });
+      const ctx = { actor, params, query, body, siteId, request };
+      const version = impl.keep && request.method === 'GET' ? await impl.keep({ params, query }) : null;
+      if (version !== null) {
+        const reply = await keptReply(`${spec.method} ${spec.path} ${JSON.stringify([params, query])}`, version, async () => {
+          const result = await impl.handle(ctx);
+          if (result instanceof Response) throw new Error(`${spec.path}: a kept reply must be data, not a Response`);
+          return result;
+        });
+        const headers = { 'content-type': 'application/json', etag: reply.etag, 'cache-control': 'private, no-cache' };
+        if (request.headers.get('if-none-match') === reply.etag) return new Response(null, { status: 304, headers });
+        return new Response(reply.text, { status: spec.status ?? 200, headers });
+      }
+      const result = await impl.handle(ctx);
       if (result instanceof Response) return result;
       return Response.json(result, { status: spec.status ?? 200 });
     } catch (err) {

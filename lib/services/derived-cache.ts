@@ -3,84 +3,96 @@ import { QueryTypes } from 'sequelize';
 import { sequelize } from '@/lib/db';
 
 /**
- * How long the newest stamp under a result must be past before the result is kept. Rows carry
- * the writer's clock, stamped before their transaction commits: two writes in one millisecond
- * carry the same stamp, and instances sharing a PostgreSQL database have clocks slightly apart.
- * A result is kept only once its data has been quiet for longer than any of these; until then
- * each request computes afresh.
+ * What an answer was computed from, as the database says now: the counts of writes to its
+ * subjects, kept by triggers whoever writes (migrations/20261202090000-count-writes-by-subject.ts).
+ * A count moves in the same transaction as the rows, so a version read *before* the data it
+ * guards is never newer than that data: an answer computed after reading version v is current for
+ * v or newer, and the next reader sees v move as soon as a write commits, through any instance.
  */
-export const SETTLE_MS = 2000;
+export type DataVersion = string;
 
-/** What a survey's derived figures were computed from, as the database says now. */
-export type DataVersion = { key: string; settled: boolean };
-
-type VersionRow = Record<'test_writes' | 'verdicts_n' | 'traps_n' | 'areas_n', number | string | null>
-  & Record<'verdicts_at' | 'traps_at' | 'areas_at', Date | string | null>;
-
-const stamp = (v: Date | string | null) => (v === null ? 0 : new Date(v).getTime());
+type Subject = 'survey' | 'site' | 'user-names';
 
 /**
- * The version of everything a survey's queue and figures read: its tests and decisions, and its
- * site's traps and areas, read from the database on every request, so a write through any
- * instance shows at once. Its tests by the database's own count of writes to them
- * (migrations/20261201100100-count-test-writes.ts); decisions, traps and areas, a few thousand rows
- * at most, by their count (a row removed) and newest stamp (a row added or changed), each from an
- * index. Who decided is read with each page instead (a user's row changes at every sign-in).
+ * The version of everything read from a survey and its site: the survey's row, tests and
+ * decisions; the site's row, traps, areas and cost settings; and the users' names (who decided).
+ * One query of three primary-key lookups.
  */
 export async function surveyDataVersion(surveyId: number): Promise<DataVersion> {
-  const site = '(SELECT site_id FROM surveys WHERE id = :surveyId)';
-  const [row] = await sequelize.query<VersionRow>(
+  const [row] = await sequelize.query<{ survey: number | string | null; site: number | string | null; names: number | string | null }>(
     `SELECT
-      (SELECT writes FROM survey_test_writes WHERE survey_id = :surveyId) AS test_writes,
-      (SELECT COUNT(*) FROM trap_verdicts WHERE survey_id = :surveyId) AS verdicts_n,
-      (SELECT MAX(updated_at) FROM trap_verdicts WHERE survey_id = :surveyId) AS verdicts_at,
-      (SELECT COUNT(*) FROM traps WHERE site_id = ${site}) AS traps_n,
-      (SELECT MAX(updated_at) FROM traps WHERE site_id = ${site}) AS traps_at,
-      (SELECT COUNT(*) FROM areas WHERE site_id = ${site}) AS areas_n,
-      (SELECT MAX(updated_at) FROM areas WHERE site_id = ${site}) AS areas_at`,
+      (SELECT writes FROM write_counts WHERE subject = 'survey' AND subject_id = :surveyId) AS survey,
+      (SELECT writes FROM write_counts WHERE subject = 'site' AND subject_id = (SELECT site_id FROM surveys WHERE id = :surveyId)) AS site,
+      (SELECT writes FROM write_counts WHERE subject = 'user-names' AND subject_id = 0) AS names`,
     { replacements: { surveyId }, type: QueryTypes.SELECT },
   );
-  const stamps = [row.verdicts_at, row.traps_at, row.areas_at].map(stamp);
-  const counts = [row.test_writes, row.verdicts_n, row.traps_n, row.areas_n].map((n) => Number(n ?? 0));
-  return { key: `${surveyId}:${counts.join(',')}:${stamps.join(',')}`, settled: Math.max(...stamps) < Date.now() - SETTLE_MS };
+  return `survey ${surveyId}:${Number(row.survey ?? 0)}:${Number(row.site ?? 0)}:${Number(row.names ?? 0)}`;
 }
 
-/** The count of writes to a survey's tests (0 before the first): a version of anything read from them alone. */
-export async function testWrites(surveyId: number): Promise<number> {
-  const [row] = await sequelize.query<{ writes: number | string }>('SELECT writes FROM survey_test_writes WHERE survey_id = :surveyId', {
-    replacements: { surveyId }, type: QueryTypes.SELECT,
+/** The count of writes to one subject (0 before the first). */
+async function writesTo(subject: Subject, id: number): Promise<number> {
+  const [row] = await sequelize.query<{ writes: number | string }>('SELECT writes FROM write_counts WHERE subject = :subject AND subject_id = :id', {
+    replacements: { subject, id }, type: QueryTypes.SELECT,
   });
   return Number(row?.writes ?? 0);
 }
 
+/** The version of a site's register: its row, traps, areas and cost settings. */
+export async function siteDataVersion(siteId: number): Promise<DataVersion> {
+  return `site ${siteId}:${await writesTo('site', siteId)}`;
+}
+
+/** The version of a survey's own rows alone: its row, tests and decisions. */
+export async function surveyRowsVersion(surveyId: number): Promise<DataVersion> {
+  return `survey rows ${surveyId}:${await writesTo('survey', surveyId)}`;
+}
+
 /**
- * Results kept per key while the version they were computed from stands, the few most recently
- * used. Concurrent requests for the same settled version share one computation; a result of an
- * unsettled version is handed back but not kept.
+ * Results kept per key while the version they were computed from stands, the most recently used
+ * within a budget (a count of entries, or a total size when each result says how large it is).
+ * Concurrent requests for the same version share one computation; a failed one is not kept.
  */
 export class DerivedCache<T> {
-  private readonly entries = new Map<string, { version: string; value: Promise<T> }>();
+  private readonly entries = new Map<string, { version: DataVersion; value: Promise<T>; size: number }>();
+  private used = 0;
 
-  constructor(private readonly capacity: number) {}
+  /** `capacity`: the budget; `sizeOf` measures a result against it (1 each when not given). */
+  constructor(private readonly capacity: number, private readonly sizeOf: (value: T) => number = () => 1) {}
 
   get(key: string, version: DataVersion, compute: () => Promise<T>): Promise<T> {
     const hit = this.entries.get(key);
-    if (hit && hit.version === version.key) {
+    if (hit && hit.version === version) {
       this.entries.delete(key);
       this.entries.set(key, hit);
       return hit.value;
     }
+    this.drop(key);
     const value = compute();
-    if (!version.settled) {
-      if (hit) this.entries.delete(key);
-      return value;
-    }
-    this.entries.delete(key);
-    this.entries.set(key, { version: version.key, value });
-    while (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value!);
-    value.catch(() => {
-      if (this.entries.get(key)?.value === value) this.entries.delete(key);
-    });
+    const entry = { version, value, size: 0 };
+    this.entries.set(key, entry);
+    value.then(
+      (result) => {
+        if (this.entries.get(key) !== entry) return;
+        entry.size = this.sizeOf(result);
+        this.used += entry.size;
+        this.trim();
+      },
+      () => {
+        if (this.entries.get(key) === entry) this.drop(key);
+      },
+    );
     return value;
+  }
+
+  private drop(key: string) {
+    const entry = this.entries.get(key);
+    if (!entry) return;
+    this.used -= entry.size;
+    this.entries.delete(key);
+  }
+
+  private trim() {
+    // The newest entry stays even when it alone is over the budget: it is the one being asked for.
+    while (this.used > this.capacity && this.entries.size > 1) this.drop(this.entries.keys().next().value!);
   }
 }

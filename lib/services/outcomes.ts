@@ -101,9 +101,18 @@ export async function surveySummary(surveyId: number): Promise<SurveySummary> {
     return { survey: head, frozen: true, settings: survey.publishedSettings as unknown as CostSettings, figures: survey.publishedSummary as unknown as SurveyFigures };
   }
   const [version, settings] = await Promise.all([surveyDataVersion(surveyId), getCostSettings(survey.siteId)]);
-  const figures = await draftFigures.get(String(surveyId), { ...version, key: `${version.key}:${JSON.stringify(settings)}` },
+  const figures = await draftFigures.get(String(surveyId), `${version}:${JSON.stringify(settings)}`,
     async () => computeSurveyFigures(await outcomeInputs(survey), resolveParams(costOverrides(settings))));
   return { survey: head, frozen: false, settings, figures };
+}
+
+/**
+ * The summary as the API sends it: the costliest `failures` of the list (all when 'all'), and how
+ * many there are. At 20,000 traps the whole list is a megabyte; the reports carry it in full.
+ */
+export function listedFailures(summary: SurveySummary, failures: number | 'all') {
+  const all = summary.figures.failures;
+  return { ...summary, figures: { ...summary.figures, failures: failures === 'all' ? all : all.slice(0, failures), failureCount: all.length } };
 }
 
 /**

@@ -4,7 +4,7 @@ import { decimateMinMax } from '@/lib/analysis/decimate';
 import { notFound } from '@/lib/http/errors';
 import { unpackFloat32, unpackFloat64 } from '@/lib/server/series-codec';
 import { Test, TestSeries } from '@/models';
-import { DerivedCache, testWrites } from './derived-cache';
+import { DerivedCache, surveyRowsVersion } from './derived-cache';
 
 function testDto(t: Test) {
   return {
@@ -22,15 +22,14 @@ const LISTED = [
   'durationS', 'sampleRateHz', 'sampleCount', 'meanLevelDb', 'dutyCycle', 'suggestedVerdict', 'confidence', 'lossKgPerHour',
 ] as const satisfies readonly (keyof Test)[];
 
-/** A survey's totals per filter, kept while the database's count of writes to its tests stands. */
+/** A survey's totals per filter, kept while the database's count of writes to its rows stands. */
 const totals = new DerivedCache<number>(64);
 
 /** The total of a list: for a survey's tests (200,000 of them) counted once per write to them, otherwise counted. */
 async function countOf(siteId: number, q: ListQuery, where: WhereOptions<Test>): Promise<number> {
   if (q.surveyId === undefined) return Test.count({ where });
-  const writes = await testWrites(q.surveyId);
-  // The count of writes is exact (no stamps): a total read after it is current for it.
-  return totals.get([siteId, q.surveyId, q.uploadId, q.trapId, q.role].join(':'), { key: String(writes), settled: true }, () => Test.count({ where }));
+  const version = await surveyRowsVersion(q.surveyId);
+  return totals.get([siteId, q.surveyId, q.uploadId, q.trapId, q.role].join(':'), version, () => Test.count({ where }));
 }
 
 type ListQuery = {

@@ -1,18 +1,17 @@
-// The review queue and a draft's figures are kept between requests while the data under them
-// stands (lib/services/derived-cache.ts). Each write below is made once the kept answer is in use,
-// and must show in the very next answer: a verdict decided, a test imported, a trap renamed, an
-// area renamed, a test removed behind the app's back; and the test list's total with them.
+// The review queue, a draft's figures, the register and the test list are kept between requests
+// while the data under them stands (lib/services/derived-cache.ts, lib/http/kept-replies.ts). Each
+// write below is made once the kept answer is in use, and must show in the very next answer: a
+// verdict decided, a test imported, a trap renamed, an area renamed, a decider renamed, cost
+// settings changed, a test removed behind the app's back; and the test list's total with them.
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { signInAdmin } from '../support/fixtures';
 import { Client, unique } from '../support/http';
 import { queryDb as query } from '../support/own-server';
 import { modelAFileFor, settled, upload } from '../support/uploads';
 
-// Longer than SETTLE_MS (lib/services/derived-cache.ts), after which a computed answer is kept.
-const QUIET_MS = 2500;
 const queryDb = <T>(sql: string, params: unknown[] = []) => query<T>(inject('dbPath'), sql, params);
 
-type Item = { trapId: number; tag: string; criticality: string; areaName: string | null; latestTestId: number; testCount: number; state: string; verdict: string | null; suggested: string | null };
+type Item = { trapId: number; tag: string; criticality: string; areaName: string | null; latestTestId: number; testCount: number; state: string; verdict: string | null; suggested: string | null; decidedBy: string | null };
 type Summary = { figures: { total: { tested: number; decided: number }; byArea: { areaName: string; tested: number }[] } };
 
 describe('derived answers stay fresh', () => {
@@ -33,10 +32,11 @@ describe('derived answers stay fresh', () => {
   };
   const testTotal = async () => (await admin.get(`/api/sites/${siteId}/tests?surveyId=${surveyId}&pageSize=1`)).body.total as number;
   const item = async (tag: string) => (await queue()).items.find((i) => i.tag === tag);
-  /** Lets the data go quiet, so the next answers are kept, and asks once to keep them. */
+  const register = async () => (await admin.get(`/api/sites/${siteId}/traps`)).body.items as { tag: string; criticality: string; areaName: string | null }[];
+  /** Asks once for each answer, so the next ones come from what was kept. */
   const keep = async () => {
-    await new Promise((r) => setTimeout(r, QUIET_MS));
     await queue();
+    await register();
     await summary();
     await testTotal();
   };
@@ -62,14 +62,39 @@ describe('derived answers stay fresh', () => {
     await keep();
     const before = await item(tags[0]);
     expect(before).toMatchObject({ testCount: 1, state: 'unreviewed', criticality: 'normal' });
-    // A raw UPDATE of a trap that leaves its updated_at alone is no write the version can see: the
-    // kept answer stands, which shows the answers below come from the kept queue unless a write moved it.
+    // A raw UPDATE of a trap with the site's count of writes put back as it was is no write the
+    // version can see: the kept answers stand, which shows the answers below come from what was
+    // kept unless a write moved the count.
+    const siteWrites = `UPDATE write_counts SET writes = writes - 1 WHERE subject = 'site' AND subject_id = ?`;
     await queryDb('UPDATE traps SET criticality = ? WHERE id = ?', ['high', before!.trapId]);
+    await queryDb(siteWrites, [siteId]);
     try {
       expect((await item(tags[0]))!.criticality).toBe('normal');
+      expect((await register()).find((t) => t.tag === tags[0])!.criticality).toBe('normal');
     } finally {
       await queryDb('UPDATE traps SET criticality = ? WHERE id = ?', ['normal', before!.trapId]);
     }
+    // The same write, counted: the very next answers show it.
+    await queryDb('UPDATE traps SET criticality = ? WHERE id = ?', ['high', before!.trapId]);
+    try {
+      expect((await item(tags[0]))!.criticality).toBe('high');
+      expect((await register()).find((t) => t.tag === tags[0])!.criticality).toBe('high');
+    } finally {
+      await queryDb('UPDATE traps SET criticality = ? WHERE id = ?', ['normal', before!.trapId]);
+    }
+  });
+
+  it('sends 304 to a client that has the kept reply, and the new reply once the data changed', async () => {
+    const path = `/api/sites/${siteId}/traps`;
+    const first = await admin.request('GET', path);
+    const etag = first.headers.get('etag');
+    expect(etag).toMatch(/^"[\w-]+"$/);
+    expect((await admin.request('GET', path, undefined, { 'if-none-match': etag! })).status).toBe(304);
+    const trapId = (await item(tags[0]))!.trapId;
+    expect((await admin.patch(`/api/traps/${trapId}`, { location: 'Header 3, north' })).status).toBe(200);
+    const after = await admin.request('GET', path, undefined, { 'if-none-match': etag! });
+    expect(after.status).toBe(200);
+    expect(after.headers.get('etag')).not.toBe(etag);
   });
 
   it('shows a confirmed verdict in the very next queue and figures', async () => {
@@ -107,6 +132,25 @@ describe('derived answers stay fresh', () => {
     expect((await admin.patch(`/api/areas/${areaId}`, { name: 'Boiler house east' })).status).toBe(200);
     expect((await item(renamed))!.areaName).toBe('Boiler house east');
     expect((await summary()).figures.byArea.map((a) => a.areaName)).toEqual(['Boiler house east']);
+    expect((await register()).find((t) => t.tag === renamed)!.areaName).toBe('Boiler house east');
+  });
+
+  it('shows new cost settings and a renamed decider in the very next answers', async () => {
+    await keep();
+    const costs = (await admin.get(`/api/sites/${siteId}/cost-settings`)).body;
+    expect((await admin.request('PUT', `/api/sites/${siteId}/cost-settings`, { ...costs, operatingHoursPerYear: 4321 })).status).toBe(200);
+    expect((await admin.get(`/api/surveys/${surveyId}/summary`)).body.settings.operatingHoursPerYear).toBe(4321);
+
+    const decided = (await queue()).items.find((i) => i.state === 'confirmed');
+    expect(decided, 'a verdict was confirmed above').toBeDefined();
+    const renamed = unique('Renamed decider');
+    const [me] = await queryDb<{ id: number; name: string }>('SELECT id, name FROM users WHERE name = ?', [decided!.decidedBy]);
+    await queryDb('UPDATE users SET name = ? WHERE id = ?', [renamed, me.id]);
+    try {
+      expect((await queue()).items.find((i) => i.trapId === decided!.trapId)!.decidedBy).toBe(renamed);
+    } finally {
+      await queryDb('UPDATE users SET name = ? WHERE id = ?', [me.name, me.id]);
+    }
   });
 
   it('drops a removed test from the very next answers, though no newer stamp was written', async () => {

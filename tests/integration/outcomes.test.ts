@@ -20,7 +20,7 @@ describe('survey outcomes', () => {
   });
 
   it('recomputes a published survey\'s figures by hand from its failures (Napier, 24.24 form, in SI)', async () => {
-    const { body } = await admin.get(`/api/surveys/${published.id}/summary`);
+    const { body } = await admin.get(`/api/surveys/${published.id}/summary?failures=all`);
     expect(body.frozen).toBe(true);
     const { total, failures, byArea } = body.figures as { total: Record<string, number>; failures: Failure[]; byArea: Record<string, number>[] };
     expect(failures.length).toBeGreaterThan(0);
@@ -42,6 +42,22 @@ describe('survey outcomes', () => {
     if (leaking) {
       const lt = (await admin.get(`/api/traps/${leaking.trapId}`)).body;
       expect(leaking.kgPerHour).toBeCloseTo(0.25 * 0.24718 * (lt.pressureBarg + 1.01325) * leaking.orificeMm ** 2, 1);
+    }
+  });
+
+  it('lists the costliest failures first, as many as asked for, and says how many there are', async () => {
+    const all = (await admin.get(`/api/surveys/${published.id}/summary?failures=all`)).body.figures as { failures: Failure[]; failureCount: number };
+    expect(all.failureCount).toBe(all.failures.length);
+    expect(all.failures.length, 'the published demo survey has at least two failures that lose steam').toBeGreaterThanOrEqual(2);
+    const two = (await admin.get(`/api/surveys/${published.id}/summary?failures=2`)).body.figures as { failures: Failure[]; failureCount: number };
+    expect(two.failures).toEqual(all.failures.slice(0, 2));
+    expect(two.failureCount).toBe(all.failures.length);
+    const byDefault = (await admin.get(`/api/surveys/${published.id}/summary`)).body.figures as { failures: Failure[] };
+    expect(byDefault.failures).toEqual(all.failures.slice(0, 20));
+    for (const bad of ['many', '-1', '1001', '2.5']) {
+      const res = await admin.get(`/api/surveys/${published.id}/summary?failures=${bad}`);
+      expect(res.status, bad).toBe(422);
+      expect(res.body.error.details.map((i: { path: string }) => i.path), bad).toEqual(['failures']);
     }
   });
 

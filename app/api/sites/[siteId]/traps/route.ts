@@ -1,9 +1,11 @@
 import { ROUTES } from '@/lib/api/routes';
 import { apiRoute } from '@/lib/http/route';
+import { siteDataVersion } from '@/lib/services/derived-cache';
 import { createTrap, listTraps } from '@/lib/services/traps';
 
 export const GET = apiRoute(ROUTES.listTraps, {
   site: ({ params }) => params.siteId,
+  keep: ({ params }) => siteDataVersion(params.siteId),
   handle: ({ params, query }) => listTraps(params.siteId, query),
 });
 
