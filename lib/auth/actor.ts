@@ -1,11 +1,10 @@
 import 'server-only';
-import { getServerSession } from 'next-auth';
 import type { Role } from '@/lib/domain/vocabulary';
 import { AppError } from '@/lib/http/errors';
 import { writeTransaction } from '@/lib/db';
 import { ApiToken } from '@/models';
 import { activeUser } from './current-user';
-import { authOptions } from './options';
+import { sessionToken, sessionUser } from './session';
 import { hashToken } from './tokens';
 
 /** Who is acting, as the database says now (never as a session cookie remembers it). */
@@ -22,16 +21,12 @@ export type Actor = {
   tokenId?: number;
 };
 
-/**
- * The actor of a session cookie; null when signed out, expired, disabled or deleted. The session
- * callback (lib/auth/options.ts) has just read the user, role and sites from the database for
- * this very call, so they are taken from it rather than read a second time.
- */
+/** The actor of the session cookie; null when signed out, expired, disabled or deleted. */
 export async function actorFromSession(): Promise<Actor | null> {
-  const user = (await getServerSession(authOptions))?.user;
-  const userId = Number(user?.id);
-  if (!user || !Number.isInteger(userId) || userId <= 0 || !user.role || !user.siteIds) return null;
-  return { userId, name: user.name ?? '', email: user.email ?? '', role: user.role, via: 'session', readOnly: false, siteIds: user.siteIds };
+  const token = await sessionToken();
+  const user = token && (await sessionUser(token));
+  if (!user) return null;
+  return { ...user, via: 'session', readOnly: false };
 }
 
 async function actorFromToken(secret: string): Promise<Actor> {

@@ -11,7 +11,8 @@ export async function siteIdsOf(user: Pick<User, 'id' | 'role'>): Promise<number
 
 /** An active user as stored now, with their sites; null when disabled or gone. */
 export async function activeUser(userId: number): Promise<{ user: User; role: Role; siteIds: number[] | 'all' } | null> {
-  const user = await User.findByPk(userId);
+  // Read on every signed-in request: the columns an actor needs, not the password hash and stamps.
+  const user = await User.findByPk(userId, { attributes: ['id', 'name', 'email', 'role', 'status'] });
   if (!user || user.status !== 'active') return null;
   return { user, role: user.role, siteIds: await siteIdsOf(user) };
 }

@@ -2,10 +2,8 @@ import 'server-only';
 import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import { authSecret } from './secret';
-import { activeUser } from './current-user';
+import { SESSION_HOURS, sessionUser } from './session';
 import { SignInRefused, verifySignIn } from './sign-in';
-
-const SESSION_HOURS = 10; // one working day in the plant, then sign in again
 
 function clientIp(headers: Record<string, unknown> | undefined): string | null {
   const forwarded = headers?.['x-forwarded-for'];
@@ -44,18 +42,11 @@ export const authOptions: NextAuthOptions = {
       }
       return token;
     },
+    // What the browser's session endpoint answers; the server reads the cookie itself (lib/auth/actor.ts).
     async session({ session, token }) {
-      // next-auth renews the cookie's expiry whenever the session is read, so a page left polling
-      // would stay signed in for ever: the working day counts from the sign-in itself.
-      const signedInAt = typeof token.signedInAt === 'number' ? token.signedInAt : 0;
-      if (Date.now() / 1000 - signedInAt > SESSION_HOURS * 3600) return { ...session, user: undefined };
-      // Role and sites come from the database on every call, never from the token, so a change
-      // made by an admin shows at once. Authorisation itself re-reads them too (lib/auth/actor.ts).
-      const current = token.uid ? await activeUser(token.uid) : null;
-      if (!current) return { ...session, user: undefined };
-      session.user = {
-        id: String(token.uid), name: current.user.name, email: current.user.email, role: current.role, siteIds: current.siteIds,
-      };
+      const user = await sessionUser(token);
+      if (!user) return { ...session, user: undefined };
+      session.user = { id: String(user.userId), name: user.name, email: user.email, role: user.role, siteIds: user.siteIds };
       return session;
     },
   },
