@@ -21,9 +21,9 @@
 // "always closed"; the absolute bands decide: a test mostly above the quiet band is one
 // continuous opening (duty cycle 1, no cycles), otherwise one closed interval.
 
-import { quantile } from 'simple-statistics';
 import type { AnalysisParams } from './defaults';
 import { boundaryS, cellWidthS, durationS, type Timebase } from './timebase';
+import { quantiles } from './quantiles';
 
 export interface Interval {
   /** Start and end of the readings' cells, s from the test start (for plotting). */
@@ -130,12 +130,14 @@ function openReferenceDb(level: Float32Array, runs: Run[]): number {
   if (inside >= 3) {
     // At most ~20,000 inside readings are enough for a median; keeps long tests fast.
     const step = Math.ceil(inside / 20_000);
-    const picked: number[] = [];
+    // Float32, as the level itself: the quantiles' passes then see one kind of array only.
+    const picked = new Float32Array(Math.ceil(inside / step));
     let k = 0;
+    let count = 0;
     for (const r of runs) {
-      for (let i = r.start + 1; i < r.end - 1; i++, k++) if (k % step === 0) picked.push(level[i]);
+      for (let i = r.start + 1; i < r.end - 1; i++, k++) if (k % step === 0) picked[count++] = level[i];
     }
-    return quantile(picked, 0.5);
+    return quantiles(picked.subarray(0, count), [0.5])[0];
   }
   let m = -Infinity;
   for (const r of runs) m = Math.max(m, maxOf(level, r.start, r.end));

@@ -27,6 +27,26 @@ describe('quantiles', () => {
     expect(quantiles(x, PS)).toEqual(expected);
   });
 
+  it.each([
+    ['a test of 4,000 readings quantised to 0.1 dB', series(4000, (r, i) => Math.round(((i % 300 < 40 ? 62 : 18) + r() * 3) * 10) / 10, 2)],
+    ['a test of 4,000 readings of whole degrees', series(4000, (r) => Math.round(150 + r() * 6), 3)],
+    ['a short test of 300 readings', series(300, (r) => r() * 50, 4)],
+  ])('%s: identical to simple-statistics, call after call', (_name, x) => {
+    const expected = quantile(Array.from(x), PS);
+    // The histogram and gathered readings are kept between calls: a call in between must leave nothing behind.
+    quantiles(series(100_000, (r) => r() * 1000, 5), PS);
+    expect(quantiles(x, PS)).toEqual(expected);
+    expect(quantiles(x, PS)).toEqual(expected);
+  });
+
+  it('a needed bin larger than the buffer kept between calls (two values, 2.2 M readings)', () => {
+    const x = series(2_200_000, (r) => (r() < 0.5 ? 10 : 20), 6);
+    expect(quantiles(x, [0.25, 0.5, 0.75])).toEqual(quantile(Array.from(x), [0.25, 0.5, 0.75]));
+    // …and the kept buffer still serves a test-sized call afterwards.
+    const y = series(4000, (r) => Math.round(r() * 30), 7);
+    expect(quantiles(y, PS)).toEqual(quantile(Array.from(y), PS));
+  });
+
   it('a constant long series', () => {
     expect(quantiles(new Float32Array(100_000).fill(7.5), [0.1, 0.9])).toEqual([7.5, 7.5]);
   });
@@ -42,12 +62,31 @@ describe('quantiles', () => {
       expect(quantileOfRange(x, s, e, 0.1, scratch)).toBe(quantile(Array.from(x.subarray(s, e)), 0.1));
     }
   });
+
+  it('quantile of a range: low quantiles from the kept smallest readings, others by selection, all as simple-statistics', () => {
+    // Quantised, with runs of equal readings: a rolling floor's 5 s blocks at 10 Hz are 50 readings.
+    const x = series(3000, (r, i) => Math.round((i % 90 < 12 ? 55 : 20 + r() * 4) * 2) / 2, 8);
+    const scratch = new Float64Array(400);
+    for (const p of [0, 0.05, 0.1, 0.2, 0.25, 0.5, 0.9, 1]) {
+      for (const [s, e] of [[0, 50], [50, 100], [7, 11], [100, 104], [200, 207], [500, 900], [2999, 3000]] as const) {
+        expect(quantileOfRange(x, s, e, p, scratch), `p ${p}, [${s}, ${e})`).toBe(quantile(Array.from(x.subarray(s, e)), p));
+      }
+    }
+  });
 });
 
 describe('temperature summary', () => {
   it('skips gaps in the temperature column', () => {
     const s = summariseTemperature([170, Number.NaN, 172, 174, Number.POSITIVE_INFINITY, 180]);
     expect(s).toEqual({ count: 4, meanC: 174, medianC: 173, minC: 170, maxC: 180 });
+  });
+  it('a float32 column with gaps: the median of its finite readings', () => {
+    const x = series(5000, (r, i) => (i % 97 === 0 ? Number.NaN : Math.round((150 + r() * 5) * 10) / 10), 9);
+    const finite = Array.from(x).filter(Number.isFinite);
+    expect(summariseTemperature(x)!.medianC).toBe(quantile(finite, 0.5));
+  });
+  it('a list of numbers keeps its own precision', () => {
+    expect(summariseTemperature([170.1, Number.NaN, 172.3, 174.7])!.medianC).toBe(172.3);
   });
   it('no finite reading: no summary', () => {
     expect(summariseTemperature([Number.NaN, Number.NaN])).toBeNull();
