@@ -7,6 +7,7 @@ import { testJson } from '@/lib/pipeline/test-json';
 import { tagKey } from '@/lib/pipeline/trap-register';
 import { SourceFile, Test, TestSeries, Upload } from '@/models';
 import { packFloat32, packFloat64 } from './series-codec';
+import { assertStillHeld } from './upload-claim';
 
 // The import's writes, several files to a transaction. A transaction costs more than the
 // statements in it (SQLite opens a connection for each), and on a day of small files one per
@@ -91,6 +92,8 @@ const SERIES_COLUMNS = (['testId', 'levelDb', 'temperatureC', 'timeOffsetsS'] as
 async function write(target: BatchTarget, batch: FileOutcome[]) {
   const stored = batch.flatMap((o) => o.tests.map((t) => ({ file: o.file, ...t, columns: testColumns(t.analysed) })));
   const rows = await writeTransaction(async (transaction) => {
+    // Nothing of an upload another instance has taken over (lib/server/upload-claim.ts).
+    await assertStillHeld(target.upload.id, transaction);
     // A file read again replaces the tests of its earlier run.
     await Test.destroy({ where: { sourceFileId: batch.map((o) => o.file.id) }, transaction });
     const rows = stored.length === 0 ? [] : await Test.bulkCreate(stored.map(({ file, analysed, test, columns }) => {

@@ -1,11 +1,11 @@
 import 'server-only';
-import os from 'node:os';
 import { Op } from 'sequelize';
 import { writeTransaction } from '@/lib/db';
 import { databaseStorageFault, fileStorageFault } from '@/lib/http/errors';
 import { SourceFile, Upload } from '@/models';
 import { processUpload } from './process-upload';
 import { clearIncoming } from './receive-upload';
+import { instanceName, UploadClaimLost } from './upload-claim';
 
 // One background worker per server process: uploads are processed one at a time, in order.
 // State lives in the database, so a restart finds what was interrupted and does it again
@@ -16,15 +16,13 @@ import { clearIncoming } from './receive-upload';
 // workers reaching for the same upload exactly one gets it; the loser's update changes no row.
 // The taker writes its instance name and renews the time while it works: a restarting instance
 // takes back only its own interrupted uploads, and another's only once that one has been silent
-// for STALE_MS (it crashed and did not come back). Idle workers look for queued uploads every
+// for STALE_MS (it crashed and did not come back). Should the silent one have been only slow,
+// its next write finds the claim gone and writes nothing (lib/server/upload-claim.ts). Idle workers look for queued uploads every
 // POLL_MS, so an upload received by a busy instance is picked up by a free one.
 
 const HEARTBEAT_MS = 30_000;
 const STALE_MS = 10 * 60_000;
 const POLL_MS = 30_000;
-
-/** This instance's name: PLUMEWARD_INSTANCE, else the host name (give each process on one host its own). */
-export const instanceName = () => (process.env.PLUMEWARD_INSTANCE || os.hostname()).slice(0, 120);
 
 const state = globalThis as unknown as { plumewardImportWorker?: { running: boolean; again: boolean; started: boolean } };
 const worker = (state.plumewardImportWorker ??= { running: false, again: false, started: false });
@@ -86,6 +84,8 @@ export function kickImportWorker() {
           if (!next) break;
           if (!(await claim(next.id))) continue;
           await holding(next.id, () => processUpload(next.id)).catch(async (err) => {
+            // Taken over by another instance: it goes on with the upload, this one leaves it be.
+            if (err instanceof UploadClaimLost) return console.warn(err.message);
             console.error(`Upload ${next.id} failed`, err);
             await markFailed(next.id, importStoppedReason(err));
           });

@@ -16,6 +16,7 @@ import { createImportBatch, testColumns, type ImportBatch, type StoredAnalysis }
 import { analysisParamsFor } from './analysis-params';
 import { uploadLimits } from './upload-limits';
 import { readStored } from './upload-store';
+import { assertStillHeld, startProcessing, UploadClaimLost } from './upload-claim';
 
 type Context = {
   upload: Upload;
@@ -71,7 +72,7 @@ export async function processUpload(uploadId: number) {
   const upload = await Upload.findByPk(uploadId);
   if (!upload) return;
   const site = (await Site.findByPk(upload.siteId))!;
-  await writeTransaction((transaction) => upload.update({ status: 'processing', startedAt: upload.startedAt ?? new Date(), error: null }, { transaction }));
+  if (!(await writeTransaction((transaction) => startProcessing(uploadId, transaction, upload.startedAt ?? new Date())))) throw new UploadClaimLost(uploadId);
   const { register, trapIdByTag } = await loadRegister(site.id);
   const analysed = new Map<number, StoredAnalysis>();
   const ctx: Context = {
@@ -81,7 +82,10 @@ export async function processUpload(uploadId: number) {
 
   // A zip still "pending" was interrupted while unpacking: its entries are made again.
   for (const zip of await SourceFile.findAll({ where: { uploadId, kind: 'zip', status: 'pending' } })) {
-    await writeTransaction((transaction) => SourceFile.destroy({ where: { containerId: zip.id }, transaction }));
+    await writeTransaction(async (transaction) => {
+      await assertStillHeld(uploadId, transaction);
+      await SourceFile.destroy({ where: { containerId: zip.id }, transaction });
+    });
     await unpackZip(ctx, zip);
   }
   await ctx.batch.flush(); // the entries just unpacked and read are no longer pending
@@ -134,6 +138,7 @@ async function unpackZip(ctx: Context, zip: SourceFile) {
     profileId: null, duplicateOf, hints: e.hints,
   });
   const entries = await writeTransaction(async (transaction) => {
+    await assertStillHeld(ctx.upload.id, transaction);
     const rows = await SourceFile.bulkCreate(firsts.map((e) => entryRow(e, null)), { transaction });
     for (const row of rows) firstWith.set(row.sha256, row.id);
     await SourceFile.bulkCreate(duplicates.map((e) => entryRow(e, firstWith.get(e.sha256)!)), { transaction });
@@ -234,6 +239,7 @@ async function settleUpload(ctx: Context) {
   });
   if (changes.length === 0) return;
   await writeTransaction(async (transaction) => {
+    await assertStillHeld(ctx.upload.id, transaction);
     for (const c of changes) await Test.update(c.values, { where: { id: c.id }, transaction });
   });
 }
@@ -267,9 +273,12 @@ async function finish(upload: Upload) {
   const unmatched = await Test.count({ where: { uploadId: upload.id, matchStatus: 'unmatched' } });
   const files = await SourceFile.findAll({ where: { uploadId: upload.id, containerId: null }, attributes: ['status'] });
   const allFailed = files.length > 0 && files.every((f) => f.status === 'failed');
-  await writeTransaction((transaction) => upload.update({
-    status: waiting || unmatched ? 'waiting_for_mapping' : allFailed ? 'failed' : 'done',
-    error: allFailed ? 'No file of this upload could be read; see each file\'s problems.' : null,
-    finishedAt: new Date(),
-  }, { transaction }));
+  await writeTransaction(async (transaction) => {
+    await assertStillHeld(upload.id, transaction);
+    await upload.update({
+      status: waiting || unmatched ? 'waiting_for_mapping' : allFailed ? 'failed' : 'done',
+      error: allFailed ? 'No file of this upload could be read; see each file\'s problems.' : null,
+      finishedAt: new Date(),
+    }, { transaction });
+  });
 }

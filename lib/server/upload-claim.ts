@@ -1,0 +1,45 @@
+import 'server-only';
+import os from 'node:os';
+import { Op, type Transaction } from 'sequelize';
+import { Upload } from '@/models';
+
+/** This instance's name: PLUMEWARD_INSTANCE, else the host name (give each process on one host its own). */
+export const instanceName = () => (process.env.PLUMEWARD_INSTANCE || os.hostname()).slice(0, 120);
+
+/**
+ * Another instance took the upload over while this one was still working on it (this one was
+ * silent for so long that it looked gone). Nothing of this instance's is written after that: it
+ * stops, and the one that took the upload over imports what is left.
+ */
+export class UploadClaimLost extends Error {
+  constructor(readonly uploadId: number) {
+    super(`Upload ${uploadId} was taken over by another instance; this one stops working on it.`);
+    this.name = 'UploadClaimLost';
+  }
+}
+
+/** Where the upload is this instance's to write to: processing under its claim. */
+const held = (uploadId: number) => ({ id: uploadId, status: 'processing' as const, claimedBy: instanceName() });
+
+/**
+ * Takes the upload to process it: a queued one (as scripts and the demo seeder hand it over), or
+ * one this instance's worker has claimed already. False when another instance holds it.
+ */
+export async function startProcessing(uploadId: number, transaction: Transaction, startedAt: Date): Promise<boolean> {
+  const [taken] = await Upload.update(
+    { status: 'processing', claimedBy: instanceName(), claimedAt: new Date(), startedAt, error: null },
+    { where: { id: uploadId, [Op.or]: [{ status: 'queued' }, held(uploadId)] }, transaction },
+  );
+  return taken === 1;
+}
+
+/**
+ * Inside a transaction that writes an upload's results: renews this instance's claim, or throws
+ * UploadClaimLost when another instance holds it now, so that transaction writes nothing. The
+ * claim's row is locked from here to the commit (PostgreSQL) or the database is (SQLite), so a
+ * takeover cannot land between this check and the writes.
+ */
+export async function assertStillHeld(uploadId: number, transaction: Transaction): Promise<void> {
+  const [renewed] = await Upload.update({ claimedAt: new Date() }, { where: held(uploadId), transaction });
+  if (renewed !== 1) throw new UploadClaimLost(uploadId);
+}
