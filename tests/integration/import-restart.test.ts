@@ -6,7 +6,7 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, signedIn } from '../support/http';
 import { queryDb as query, runDb, startServer, tempDb, type OwnServer } from '../support/own-server';
-import { modelAFileFor, multipart, type FilePart } from '../support/uploads';
+import { settled, startLargeUpload } from '../support/uploads';
 
 describe('an import interrupted by a crash', () => {
   let server: OwnServer;
@@ -23,30 +23,8 @@ describe('an import interrupted by a crash', () => {
 
   it('resumes after SIGKILL with every file imported once and nothing half-written', async () => {
     const analyst = await signedIn(DEMO.analyst.email, DEMO.analyst.password, server.baseUrl);
-    const site = (await analyst.get('/api/sites')).body.items.find((s: { code: string }) => s.code === 'FV');
-    const survey = (await analyst.post(`/api/sites/${site.id}/surveys`, { name: 'Crash survey', startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' })).body;
-    const tags = (await analyst.get(`/api/sites/${site.id}/traps?status=in_service&pageSize=500`)).body.items.map((t: { tag: string }) => t.tag);
-    // Many files, each a different test, so the kill lands while files are still waiting.
-    const files: FilePart[] = [];
-    for (let round = 0; files.length < 400; round++) {
-      for (const tag of tags) {
-        if (files.length >= 400) break;
-        const file = modelAFileFor(tag);
-        const text = (file.bytes as string).replaceAll('2025-04-08T09:', `2025-04-08T1${round}:`);
-        files.push({ name: `crash-${round}-${file.name}`, bytes: text });
-      }
-    }
-    const sent = await analyst.request('POST', `/api/surveys/${survey.id}/uploads`, multipart(files));
-    expect(sent.status).toBe(201);
-    const uploadId = sent.body.id as number;
-
-    // Kill it once some files are in and some are not.
-    let progress = { filesDone: 0, filesTotal: files.length };
-    const deadline = Date.now() + 30_000;
-    while (progress.filesDone < 5 && Date.now() < deadline) {
-      progress = (await analyst.get(`/api/uploads/${uploadId}`)).body.progress;
-      await new Promise((r) => setTimeout(r, 20));
-    }
+    // Killed once some files are in and some are not.
+    const { files, uploadId } = await startLargeUpload(analyst, 'FV', 'crash');
     server.process.kill('SIGKILL');
     await new Promise((r) => server.process.once('exit', r));
     const atKill = await query<{ status: string; n: number }>(dbPath, `SELECT status, COUNT(*) AS n FROM source_files WHERE upload_id = ${uploadId} GROUP BY status`);
@@ -59,12 +37,7 @@ describe('an import interrupted by a crash', () => {
 
     server = await startServer(dbPath);
     const again = await signedIn(DEMO.analyst.email, DEMO.analyst.password, server.baseUrl);
-    let detail = (await again.get(`/api/uploads/${uploadId}`)).body;
-    const until = Date.now() + 120_000;
-    while (['queued', 'processing'].includes(detail.status) && Date.now() < until) {
-      await new Promise((r) => setTimeout(r, 250));
-      detail = (await again.get(`/api/uploads/${uploadId}`)).body;
-    }
+    const detail = await settled(again, uploadId, 120_000);
     expect(detail.status).toBe('done');
     expect(detail.files.every((f: { status: string; testCount: number }) => f.status === 'processed' && f.testCount === 1)).toBe(true);
     const [{ n }] = await query<{ n: number }>(dbPath, `SELECT COUNT(*) AS n FROM tests WHERE upload_id = ${uploadId}`);

@@ -6,7 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO, signedIn } from '../support/http';
 import { queryDb as query, runDb, startServer, tempDb, type OwnServer } from '../support/own-server';
-import { modelAFileFor, multipart, type FilePart } from '../support/uploads';
+import { settled, startLargeUpload } from '../support/uploads';
 
 /** A time as Sequelize writes it, which both SQLite (text) and PostgreSQL (timestamptz) read. */
 const stamp = (ms: number) => new Date(ms).toISOString().replace('T', ' ').replace('Z', ' +00:00');
@@ -28,29 +28,10 @@ describe('an upload taken over from a slow instance', () => {
 
   it('writes nothing more once taken over, and the taker imports the rest exactly once', async () => {
     const analyst = await signedIn(DEMO.analyst.email, DEMO.analyst.password, server.baseUrl);
-    const site = (await analyst.get('/api/sites')).body.items.find((s: { code: string }) => s.code === 'FV');
-    const survey = (await analyst.post(`/api/sites/${site.id}/surveys`, { name: 'Takeover survey', startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' })).body;
-    const tags = (await analyst.get(`/api/sites/${site.id}/traps?status=in_service&pageSize=500`)).body.items.map((t: { tag: string }) => t.tag);
-    const files: FilePart[] = [];
-    for (let round = 0; files.length < 400; round++) {
-      for (const tag of tags) {
-        if (files.length >= 400) break;
-        const file = modelAFileFor(tag);
-        files.push({ name: `takeover-${round}-${file.name}`, bytes: (file.bytes as string).replaceAll('2025-04-08T09:', `2025-04-08T1${round}:`) });
-      }
-    }
-    const sent = await analyst.request('POST', `/api/surveys/${survey.id}/uploads`, multipart(files));
-    expect(sent.status).toBe(201);
-    const uploadId = sent.body.id as number;
+    const { files, uploadId } = await startLargeUpload(analyst, 'FV', 'takeover');
     const uploadRow = async () => (await query<UploadRow>(dbPath, `SELECT status, claimed_by, files_done, files_total, test_count FROM uploads WHERE id = ${uploadId}`))[0];
     const testsStored = async () => Number((await query<{ n: number }>(dbPath, `SELECT COUNT(*) AS n FROM tests WHERE upload_id = ${uploadId}`))[0].n);
 
-    let progress = { filesDone: 0 };
-    const deadline = Date.now() + 30_000;
-    while (progress.filesDone < 5 && Date.now() < deadline) {
-      progress = (await analyst.get(`/api/uploads/${uploadId}`)).body.progress;
-      await new Promise((r) => setTimeout(r, 20));
-    }
     // Another instance takes the upload over, as its worker's claim does.
     await query(dbPath, `UPDATE uploads SET claimed_by = 'another-instance', claimed_at = '${stamp(Date.now())}' WHERE id = ${uploadId}`);
     const atTakeover = await uploadRow();
@@ -70,12 +51,7 @@ describe('an upload taken over from a slow instance', () => {
     await new Promise((r) => server.process.once('exit', r));
     server = await startServer(dbPath);
     const again = await signedIn(DEMO.analyst.email, DEMO.analyst.password, server.baseUrl);
-    let detail = (await again.get(`/api/uploads/${uploadId}`)).body;
-    const until = Date.now() + 120_000;
-    while (['queued', 'processing'].includes(detail.status) && Date.now() < until) {
-      await new Promise((r) => setTimeout(r, 250));
-      detail = (await again.get(`/api/uploads/${uploadId}`)).body;
-    }
+    const detail = await settled(again, uploadId, 120_000);
     expect(detail.status).toBe('done');
     expect(detail.files.every((f: { status: string; testCount: number }) => f.status === 'processed' && f.testCount === 1)).toBe(true);
     expect(await testsStored()).toBe(files.length);

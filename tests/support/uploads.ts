@@ -51,3 +51,31 @@ export function modelAFileFor(tag: string): FilePart {
   const text = Buffer.from(source.bytes).toString('utf8').replaceAll('FV-EVP-032', tag);
   return { name: `A_${tag}_${Date.now()}.csv`, bytes: text };
 }
+
+/**
+ * A large upload for a site's demo survey of its own: `count` model A files, each a different
+ * test (the site's traps in service, read again later in the day), so that an import of it takes
+ * long enough for a test to step in while files are still waiting.
+ */
+export async function startLargeUpload(client: Client, siteCode: string, label: string, count = 400) {
+  const site = (await client.get('/api/sites')).body.items.find((s: { code: string }) => s.code === siteCode);
+  const survey = (await client.post(`/api/sites/${site.id}/surveys`, { name: `${label} survey`, startsOn: '2026-11-01', endsOn: '2026-12-31', status: 'in_progress' })).body;
+  const tags = (await client.get(`/api/sites/${site.id}/traps?status=in_service&pageSize=500`)).body.items.map((t: { tag: string }) => t.tag);
+  const files: FilePart[] = [];
+  for (let round = 0; files.length < count; round++) {
+    for (const tag of tags) {
+      if (files.length >= count) break;
+      const file = modelAFileFor(tag);
+      files.push({ name: `${label}-${round}-${file.name}`, bytes: (file.bytes as string).replaceAll('2025-04-08T09:', `2025-04-08T1${round}:`) });
+    }
+  }
+  const sent = await upload(client, survey.id, files);
+  if (sent.status !== 201) throw new Error(`upload: ${sent.status} ${JSON.stringify(sent.body)}`);
+  const uploadId = sent.body.id as number;
+  // Returns once a few files are in: the rest are still waiting.
+  const deadline = Date.now() + 30_000;
+  while ((await client.get(`/api/uploads/${uploadId}`)).body.progress.filesDone < 5 && Date.now() < deadline) {
+    await new Promise((r) => setTimeout(r, 20));
+  }
+  return { files, uploadId };
+}
