@@ -13,6 +13,7 @@ import * as m20261201090000 from './20261201090000-add-upload-claims';
 import * as m20261201100000 from './20261201100000-add-survey-read-indexes';
 import * as m20261201100100 from './20261201100100-count-test-writes';
 import * as m20261202090000 from './20261202090000-count-writes-by-subject';
+import * as m20261202090100 from './20261202090100-one-active-work-order';
 
 export const migrations = [
   { name: '20261201000100-create-users-sites-memberships', ...m20261201000100 },
@@ -29,4 +30,5 @@ export const migrations = [
   { name: '20261201100000-add-survey-read-indexes', ...m20261201100000 },
   { name: '20261201100100-count-test-writes', ...m20261201100100 },
   { name: '20261202090000-count-writes-by-subject', ...m20261202090000 },
+  { name: '20261202090100-one-active-work-order', ...m20261202090100 },
 ];

@@ -1,5 +1,5 @@
 import 'server-only';
-import { Op, type Transaction } from 'sequelize';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { FAILED_VERDICTS, isVerdictCode, VERDICT_LABELS, type VerdictCode } from '@/lib/analysis/verdict-codes';
 import {
   WORK_ORDER_ACTION_LABELS, WORK_ORDER_PRIORITY_LABELS,
@@ -220,7 +220,11 @@ export async function createWorkOrders(actor: Actor, surveyId: number, input: Wo
         status: plannedStatus(item.assigneeId, item.dueOn), lossKgPerHour: c.kgPerHour, costPerYear: c.costPerYear,
         repairCost: null, notes: null, doneAt: null, doneBy: null, verifiedByTestId: null, verifiedAt: null, remindedAt: null,
         createdBy: actor.userId,
-      }, { transaction });
+      }, { transaction }).catch((err) => {
+        // Another instance made an order for this trap since the check above (work_orders_one_active).
+        if (err instanceof UniqueConstraintError) throw new AppError('conflict', `${c.tag} got a work order meanwhile. Reload the plan and edit that order instead.`);
+        throw err;
+      });
       await recordAudit(actor, {
         siteId: survey.siteId, action: 'workorder.create', entityType: 'work_order', entityId: order.id,
         after: { ...snapshot(order), trapId: c.trapId, tag: c.tag, verdict: c.verdict, priorityReason: c.priorityReason },

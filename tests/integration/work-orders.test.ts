@@ -1,15 +1,17 @@
 // Work orders over HTTP: made from confirmed failures only, priorities by the rule table, the
 // status rules and their refusals, a technician marking done, and a later re-test that verifies
 // or re-opens (model A files uploaded into the survey in progress, analysed by the real import).
-import { beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { FAILED_VERDICTS, type VerdictCode } from '@/lib/analysis/verdict-codes';
 import { workOrderPriority } from '@/lib/outcomes/work-order-priority';
 import { demoSites, MODEL_A, newUser, signInAdmin, type SiteIds } from '../support/fixtures';
 import { type Client, DEMO, signedIn } from '../support/http';
+import { queryDb as query } from '../support/own-server';
 import { ensureProfile, settled, upload } from '../support/uploads';
 import { freeCandidate, publishedSurveyOf } from './samples/work-orders';
 
 type Kind = 'working' | 'blowing' | 'cold';
+const queryDb = <T>(sql: string, params: unknown[] = []) => query<T>(inject('dbPath'), sql, params);
 let serial = 0;
 
 /** A model A meter file (our invented layout: ISO UTC time, tag, level dB, surface °C) of one 30 s test at 10 Hz. */
@@ -119,6 +121,21 @@ describe('work orders', () => {
       const wrong = await analyst.post(`/api/surveys/${own.surveyId}/work-orders`, { items: [{ trapId: c.trapId, assigneeId: stranger.id, dueOn: '2030-01-01' }] });
       expect(wrong.status).toBe(422);
       expect(wrong.body.error.details[0]).toMatchObject({ path: 'items.0.assigneeId' });
+    });
+
+    it('the database itself holds one active order per trap and survey, as another instance would find', async () => {
+      const a = await confirmedFailure('blowing');
+      const made = await order(a.trapId);
+      // A second order for the same trap and survey written behind the service's check, as a
+      // second instance racing the first would: refused while the first is active…
+      const copy = `INSERT INTO work_orders (site_id, survey_id, trap_id, verdict, action, priority, status, created_at, updated_at)
+        SELECT site_id, survey_id, trap_id, verdict, action, priority, 'open', created_at, updated_at FROM work_orders WHERE id = ?`;
+      await expect(queryDb(copy, [made.id])).rejects.toThrow(/unique|UNIQUE/);
+      // …and taken once it is verified (closed): a trap that fails again gets a new order.
+      await queryDb("UPDATE work_orders SET status = 'verified' WHERE id = ?", [made.id]);
+      await queryDb(copy, [made.id]);
+      const rows = await queryDb<{ status: string }>('SELECT status FROM work_orders WHERE trap_id = ? ORDER BY id', [a.trapId]);
+      expect(rows.map((r) => r.status)).toEqual(['verified', 'open']);
     });
   });
 
