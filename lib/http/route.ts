@@ -6,6 +6,7 @@ import type { RouteSpec } from '@/lib/api/spec';
 import type { DataVersion } from '@/lib/services/derived-cache';
 import { AppError, toErrorBody } from './errors';
 import { keptReply } from './kept-replies';
+import { nulIssues } from '@/lib/validation/no-nul';
 import { fieldIssues } from './zod-issues';
 
 type Out<T> = T extends z.ZodType ? z.output<T> : undefined;
@@ -46,6 +47,12 @@ function assertSameOrigin(request: Request, actor: Actor) {
   if (!origin) return;
   const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host');
   if (!URL.canParse(origin) || new URL(origin).host !== host) throw refused;
+}
+
+/** Query and body text with a NUL character in it are refused before their schemas (lib/validation/no-nul.ts). */
+function assertNoNul(value: unknown) {
+  const issues = nulIssues(value);
+  if (issues.length) throw new AppError('invalid', 'Text may not contain the NUL character.', issues);
 }
 
 function parseOr<T extends z.ZodType>(schema: T, value: unknown, onError: (e: z.ZodError) => AppError): z.output<T> {
@@ -90,12 +97,15 @@ export function apiRoute<S extends RouteSpec>(
         ? parseOr(spec.params, await context.params, () => new AppError('not_found', 'No such record.'))
         : undefined) as Out<S['params']>;
       const searchParams = Object.fromEntries(new URL(request.url).searchParams);
+      assertNoNul(searchParams);
       const query = (spec.query
         ? parseOr(spec.query, searchParams, (e) => new AppError('invalid', 'Invalid query parameters.', fieldIssues(e)))
         : undefined) as Out<S['query']>;
       const siteId = impl.site ? await assertSiteAccess(actor, await impl.site({ params, query })) : null;
+      const json = spec.body ? await readJson(request) : undefined;
+      assertNoNul(json);
       const body = (spec.body
-        ? parseOr(spec.body, await readJson(request), (e) => new AppError('invalid', 'Invalid request body.', fieldIssues(e)))
+        ? parseOr(spec.body, json, (e) => new AppError('invalid', 'Invalid request body.', fieldIssues(e)))
         : undefined) as RouteContext<S>['body'];
       const ctx = { actor, params, query, body, siteId, request };
       const version = impl.keep && request.method === 'GET' ? await impl.keep({ params, query }) : null;

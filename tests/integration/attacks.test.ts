@@ -1,7 +1,8 @@
 // Attacks over HTTP against the built app, each with the exact refusal or the exact harmless
 // outcome: the security headers on pages and on API responses, cross-site writes made with the
 // session cookie, formula-looking names flowing into the CSV and spreadsheet exports, and an upload
-// past the proxy's body limit (the upload routes must stay outside proxy.ts's matcher).
+// past the proxy's body limit (the upload routes must stay outside proxy.ts's matcher), and the NUL
+// character in text (JSON bodies, query strings, server actions).
 // Covered elsewhere, not repeated here: zip bombs, traversal names, truncated zips, a PNG renamed
 // .csv, empty and header-only files, 413 for oversized uploads (tests/integration/uploads.test.ts,
 // tests/lib/import/zip-read.test.ts); brute-force sign-in (tests/integration/sign-in.test.ts);
@@ -11,6 +12,7 @@ import ExcelJS from 'exceljs';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { signInAdmin } from '../support/fixtures';
 import { baseUrl, Client, unique } from '../support/http';
+import { builtActions, callAction, pageUrl } from '../support/server-actions';
 import { settled, upload } from '../support/uploads';
 import { csvRecords, readWorkbook, sheetRecords } from '../lib/reports/read-report';
 
@@ -205,6 +207,35 @@ describe('attacks and their exact refusals', () => {
       // The title row starts with our own words, so it needs no apostrophe; it is text all the same.
       expect(wb.getWorksheet('Summary')!.getCell('A1').value).toBe(`Survey report — ${surveyName}, ${siteName}`);
       wb.eachSheet((ws) => ws.eachRow((row) => row.eachCell((c) => expect(c.type, `${ws.name}!${c.address}`).not.toBe(ExcelJS.ValueType.Formula))));
+    });
+  });
+
+  describe('the NUL character in text', () => {
+    // Refused wherever it arrives (lib/validation/no-nul.ts): PostgreSQL cannot store it, SQLite would.
+    const NUL = { code: 'invalid', message: 'Text may not contain the NUL character.' };
+    const detail = (path: string) => [{ path, message: 'Text may not contain the NUL character (\\u0000).' }];
+
+    it('in a JSON body: 422 naming the field, nothing stored', async () => {
+      const tag = unique('NUL');
+      const res = await admin.post(`/api/sites/${siteId}/traps`, { tag, location: 'Header 2\u0000, east', trapType: 'float', pressureBarg: 5 });
+      expect(res.status).toBe(422);
+      expect(res.body).toEqual({ error: { ...NUL, details: detail('location') } });
+      expect((await admin.get(`/api/sites/${siteId}/traps?q=${tag}`)).body.total).toBe(0);
+    });
+
+    it('in a query string: 422 naming the parameter', async () => {
+      const res = await admin.get(`/api/sites/${siteId}/traps?q=LD%00`);
+      expect(res.status).toBe(422);
+      expect(res.body).toEqual({ error: { ...NUL, details: detail('q') } });
+    });
+
+    it('in a server action: refused with the field, nothing stored', async () => {
+      const createArea = builtActions().find((a) => a.filename === 'lib/actions/register.ts' && a.exportedName === 'createAreaAction')!;
+      const name = `${unique('Nul area')}\u0000`;
+      const called = await callAction(admin, createArea, [{ siteId, area: { name } }], { page: pageUrl(createArea.pages[0], { siteId }) });
+      expect(called.result).toEqual({ ok: false, error: { ...NUL, details: detail('area.name') } });
+      const areas = (await admin.get(`/api/sites/${siteId}/areas`)).body.items as { name: string }[];
+      expect(areas.some((a) => a.name.startsWith(name.slice(0, -1)))).toBe(false);
     });
   });
 
