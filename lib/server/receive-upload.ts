@@ -52,7 +52,12 @@ export async function receiveParts(
   try {
     const [fields, files] = await form.parse(stream as never);
     await Promise.all([...writes.values()].map((w) => finished(w)));
-    return { fields, files, parts: Object.values(files).flat().filter((f): f is formidable.File => !!f), discard };
+    // formidable lists a part when its end has been read, and its write may finish later still:
+    // the parts in the order they were sent, which is the order their streams were opened in.
+    const sent = [...writes.keys()];
+    const parts = Object.values(files).flat().filter((f): f is formidable.File => !!f)
+      .sort((a, b) => sent.indexOf(a.filepath) - sent.indexOf(b.filepath));
+    return { fields, files, parts, discard };
   } catch (err) {
     // Every part written so far, whole or not, goes before we answer.
     await Promise.all([...writes.values()].map((w) => finished(w.destroy()).catch(() => undefined)));
