@@ -7,6 +7,8 @@
 // instead one pass counts the readings into a histogram between min and max, the
 // histogram says which bins hold the needed order statistics, a second pass gathers only
 // those bins' readings, and selection within them gives the same order statistics exactly.
+// A bin whose readings are all one value (a meter's resolution is often coarser than a
+// bin) gives its order statistics from the count alone, without the second pass.
 // The histogram and the gathered readings live in buffers kept between calls: the
 // per-test analysis calls this for every test of an import, and a fresh typed array of a
 // few kilobytes each time cost more than the counting itself (measured on a day of files).
@@ -20,6 +22,10 @@ const MAX_BINS = 4096;
 const counts = new Int32Array(MAX_BINS + 1);
 const before = new Int32Array(MAX_BINS + 1);
 const slotOfBin = new Int32Array(MAX_BINS);
+// Each bin's lowest and highest reading: a bin of one value (a meter's resolution is often
+// coarser than a bin) gives its order statistics without the second pass.
+const binLow = new Float64Array(MAX_BINS + 1);
+const binHigh = new Float64Array(MAX_BINS + 1);
 let gathered = new Float64Array(1 << 16);
 const KEEP_GATHERED_UP_TO = 1 << 20;
 
@@ -62,8 +68,18 @@ export function selectK(values: Float64Array, k: number, length = values.length)
 // parameters keep these two passes over the readings tight.
 function countBins(x: ArrayLike<number>, lo: number, scale: number, bins: number): void {
   counts.fill(0, 0, bins + 1);
-  for (let i = 0; i < x.length; i++) counts[((x[i] - lo) * scale) | 0]++;
+  binLow.fill(Infinity, 0, bins + 1);
+  binHigh.fill(-Infinity, 0, bins + 1);
+  for (let i = 0; i < x.length; i++) {
+    const v = x[i];
+    const b = ((v - lo) * scale) | 0;
+    counts[b]++;
+    if (v < binLow[b]) binLow[b] = v;
+    if (v > binHigh[b]) binHigh[b] = v;
+  }
   counts[bins - 1] += counts[bins];
+  if (binLow[bins] < binLow[bins - 1]) binLow[bins - 1] = binLow[bins];
+  if (binHigh[bins] > binHigh[bins - 1]) binHigh[bins - 1] = binHigh[bins];
 }
 
 /** Copies the readings of the bins with a slot into out, each slot's from its offset on. */
@@ -199,6 +215,11 @@ export function quantiles(x: ArrayLike<number>, ps: readonly number[], min?: num
       size += counts[b];
     }
   }
+  if (binsNeeded.every((b) => binLow[b] === binHigh[b])) {
+    const orderStatistic = new Map<number, number>();
+    for (const k of ranks) orderStatistic.set(k, binLow[binOfRank(k)]);
+    return interpolated(n, ps, orderStatistic);
+  }
   if (gathered.length < size) {
     const grown = new Float64Array(size);
     if (size <= KEEP_GATHERED_UP_TO) gathered = grown;
@@ -219,6 +240,11 @@ function orderStatisticsIn(
     const offset = offsets[slotOfBin[b]];
     orderStatistic.set(k, selectIn(out, offset + k - before[b], offset, offset + counts[b] - 1));
   }
+  return interpolated(n, ps, orderStatistic);
+}
+
+/** Type 7 between the order statistics: the lower one where (n − 1)·p is whole, else linear between the two. */
+function interpolated(n: number, ps: readonly number[], orderStatistic: Map<number, number>): number[] {
   return ps.map((p) => {
     const idx = (n - 1) * p;
     const lower = orderStatistic.get(Math.floor(idx))!;

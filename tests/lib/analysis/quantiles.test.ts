@@ -31,6 +31,8 @@ describe('quantiles', () => {
     ['a test of 4,000 readings quantised to 0.1 dB', series(4000, (r, i) => Math.round(((i % 300 < 40 ? 62 : 18) + r() * 3) * 10) / 10, 2)],
     ['a test of 4,000 readings of whole degrees', series(4000, (r) => Math.round(150 + r() * 6), 3)],
     ['a short test of 300 readings', series(300, (r) => r() * 50, 4)],
+    // Bins of one value answer without gathering; here the top quantiles' bins hold several.
+    ['whole decibels, with a tail of unrounded readings', series(4000, (r, i) => (i % 10 === 0 ? 60 + r() * 30 : Math.round(15 + r() * 8)), 10)],
   ])('%s: identical to simple-statistics, call after call', (_name, x) => {
     const expected = quantile(Array.from(x), PS);
     // The histogram and gathered readings are kept between calls: a call in between must leave nothing behind.
