@@ -5,7 +5,7 @@ import { databaseStorageFault, fileStorageFault } from '@/lib/http/errors';
 import { SourceFile, Upload } from '@/models';
 import { processUpload } from './process-upload';
 import { clearIncoming } from './receive-upload';
-import { instanceName, UploadClaimLost } from './upload-claim';
+import { instanceName, renewClaim, UploadClaimLost } from './upload-claim';
 
 // One background worker per server process: uploads are processed one at a time, in order.
 // State lives in the database, so a restart finds what was interrupted and does it again
@@ -48,7 +48,7 @@ async function claim(uploadId: number): Promise<boolean> {
 /** Renews this instance's claim on the upload while `work` runs. */
 async function holding<T>(uploadId: number, work: () => Promise<T>): Promise<T> {
   const timer = setInterval(() => {
-    writeTransaction((transaction) => Upload.update({ claimedAt: new Date() }, { where: { id: uploadId, status: 'processing', claimedBy: instanceName() }, transaction }))
+    writeTransaction((transaction) => renewClaim(uploadId, transaction))
       .catch((err) => console.warn(`Could not renew the claim on upload ${uploadId}`, err));
   }, HEARTBEAT_MS);
   try {

@@ -40,6 +40,11 @@ export async function startProcessing(uploadId: number, transaction: Transaction
  * takeover cannot land between this check and the writes.
  */
 export async function assertStillHeld(uploadId: number, transaction: Transaction): Promise<void> {
+  if (!(await renewClaim(uploadId, transaction))) throw new UploadClaimLost(uploadId);
+}
+
+/** Renews this instance's claim on the upload (its heartbeat too); false when another instance holds it now. */
+export async function renewClaim(uploadId: number, transaction: Transaction): Promise<boolean> {
   const [renewed] = await Upload.update({ claimedAt: new Date() }, { where: held(uploadId), transaction });
-  if (renewed !== 1) throw new UploadClaimLost(uploadId);
+  return renewed === 1;
 }
