@@ -5,7 +5,7 @@ import { assertPermission, assertSiteAccess } from '@/lib/auth/guard';
 import type { Permission } from '@/lib/auth/permissions';
 import { AppError, toErrorBody, type ErrorBody } from '@/lib/http/errors';
 import { fieldIssues } from '@/lib/http/zod-issues';
-import { nulIssues } from '@/lib/validation/no-nul';
+import { assertNoNul } from '@/lib/validation/no-nul';
 
 export type ActionResult<T> = { ok: true; data: T } | ({ ok: false } & ErrorBody);
 
@@ -35,8 +35,7 @@ export function defineAction<S extends z.ZodType, T>(
       const actor = await actorFromSession();
       if (!actor) throw new AppError('unauthenticated', 'Your session has ended. Sign in again.');
       assertPermission(actor, spec.permission);
-      const nul = nulIssues(raw);
-      if (nul.length) throw new AppError('invalid', 'Text may not contain the NUL character.', nul);
+      assertNoNul(raw);
       const parsed = spec.input.safeParse(raw);
       if (!parsed.success) throw new AppError('invalid', 'Some fields need attention.', fieldIssues(parsed.error));
       const siteId = spec.site ? await assertSiteAccess(actor, await spec.site(parsed.data)) : null;

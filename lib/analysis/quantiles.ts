@@ -220,19 +220,12 @@ export function quantiles(x: ArrayLike<number>, ps: readonly number[], min?: num
     for (const k of ranks) orderStatistic.set(k, binLow[binOfRank(k)]);
     return interpolated(n, ps, orderStatistic);
   }
-  if (gathered.length < size) {
-    const grown = new Float64Array(size);
-    if (size <= KEEP_GATHERED_UP_TO) gathered = grown;
-    return orderStatisticsIn(x, ps, lo, scale, bins, ranks, binOfRank, binsNeeded, offsets, grown);
+  // The kept buffer, grown as needed (and kept grown up to a limit: a bin of millions is a one-off).
+  let out = gathered;
+  if (out.length < size) {
+    out = new Float64Array(size);
+    if (size <= KEEP_GATHERED_UP_TO) gathered = out;
   }
-  return orderStatisticsIn(x, ps, lo, scale, bins, ranks, binOfRank, binsNeeded, offsets, gathered);
-}
-
-function orderStatisticsIn(
-  x: ArrayLike<number>, ps: readonly number[], lo: number, scale: number, bins: number, ranks: Set<number>,
-  binOfRank: (k: number) => number, binsNeeded: number[], offsets: number[], out: Float64Array,
-): number[] {
-  const n = x.length;
   gatherBins(x, lo, scale, bins - 1, Int32Array.from(offsets), out);
   const orderStatistic = new Map<number, number>();
   for (const k of ranks) {

@@ -5,8 +5,8 @@ import { assertPermission, assertSiteAccess } from '@/lib/auth/guard';
 import type { RouteSpec } from '@/lib/api/spec';
 import type { DataVersion } from '@/lib/services/derived-cache';
 import { AppError, toErrorBody } from './errors';
+import { assertNoNul } from '@/lib/validation/no-nul';
 import { keptReply } from './kept-replies';
-import { nulIssues } from '@/lib/validation/no-nul';
 import { fieldIssues } from './zod-issues';
 
 type Out<T> = T extends z.ZodType ? z.output<T> : undefined;
@@ -47,12 +47,6 @@ function assertSameOrigin(request: Request, actor: Actor) {
   if (!origin) return;
   const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host');
   if (!URL.canParse(origin) || new URL(origin).host !== host) throw refused;
-}
-
-/** Query and body text with a NUL character in it are refused before their schemas (lib/validation/no-nul.ts). */
-function assertNoNul(value: unknown) {
-  const issues = nulIssues(value);
-  if (issues.length) throw new AppError('invalid', 'Text may not contain the NUL character.', issues);
 }
 
 function parseOr<T extends z.ZodType>(schema: T, value: unknown, onError: (e: z.ZodError) => AppError): z.output<T> {

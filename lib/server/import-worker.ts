@@ -5,7 +5,7 @@ import { databaseStorageFault, fileStorageFault } from '@/lib/http/errors';
 import { SourceFile, Upload } from '@/models';
 import { processUpload } from './process-upload';
 import { clearIncoming } from './receive-upload';
-import { instanceName, renewClaim, UploadClaimLost } from './upload-claim';
+import { instanceName, renewClaim, takeQueued, UploadClaimLost } from './upload-claim';
 
 // One background worker per server process: uploads are processed one at a time, in order.
 // State lives in the database, so a restart finds what was interrupted and does it again
@@ -17,8 +17,9 @@ import { instanceName, renewClaim, UploadClaimLost } from './upload-claim';
 // The taker writes its instance name and renews the time while it works: a restarting instance
 // takes back only its own interrupted uploads, and another's only once that one has been silent
 // for STALE_MS (it crashed and did not come back). Should the silent one have been only slow,
-// its next write finds the claim gone and writes nothing (lib/server/upload-claim.ts). Idle workers look for queued uploads every
-// POLL_MS, so an upload received by a busy instance is picked up by a free one.
+// its next write finds the claim gone and writes nothing (lib/server/upload-claim.ts). Idle
+// workers look for queued uploads every POLL_MS, so an upload received by a busy instance is
+// picked up by a free one.
 
 const HEARTBEAT_MS = 30_000;
 const STALE_MS = 10 * 60_000;
@@ -34,15 +35,6 @@ async function requeueAbandoned(includingMine: boolean) {
   // Read first: the poll runs every half minute and should not take SQLite's write lock for nothing.
   if (!(await Upload.findOne({ where, attributes: ['id'] }))) return;
   await writeTransaction((transaction) => Upload.update({ status: 'queued', claimedBy: null, claimedAt: null }, { where, transaction }));
-}
-
-/** Takes a queued upload for this instance; false when another worker took it first. */
-async function claim(uploadId: number): Promise<boolean> {
-  const [taken] = await writeTransaction((transaction) => Upload.update(
-    { status: 'processing', claimedBy: instanceName(), claimedAt: new Date() },
-    { where: { id: uploadId, status: 'queued' }, transaction },
-  ));
-  return taken === 1;
 }
 
 /** Renews this instance's claim on the upload while `work` runs. */
@@ -82,7 +74,7 @@ export function kickImportWorker() {
         for (;;) {
           const next = await Upload.findOne({ where: { status: 'queued' }, order: [['id', 'ASC']], attributes: ['id'] });
           if (!next) break;
-          if (!(await claim(next.id))) continue;
+          if (!(await writeTransaction((transaction) => takeQueued(next.id, transaction)))) continue;
           await holding(next.id, () => processUpload(next.id)).catch(async (err) => {
             // Taken over by another instance: it goes on with the upload, this one leaves it be.
             if (err instanceof UploadClaimLost) return console.warn(err.message);

@@ -1,6 +1,6 @@
 import 'server-only';
 import os from 'node:os';
-import { Op, type Transaction } from 'sequelize';
+import { Op, type InferAttributes, type Transaction, type WhereOptions } from 'sequelize';
 import { Upload } from '@/models';
 
 /** This instance's name: PLUMEWARD_INSTANCE, else the host name (give each process on one host its own). */
@@ -21,16 +21,26 @@ export class UploadClaimLost extends Error {
 /** Where the upload is this instance's to write to: processing under its claim. */
 const held = (uploadId: number) => ({ id: uploadId, status: 'processing' as const, claimedBy: instanceName() });
 
+/** One conditional UPDATE: of two instances reaching for the same upload, exactly one changes the row. */
+async function claimWhere(uploadId: number, where: WhereOptions<Upload>, transaction: Transaction, also: Partial<InferAttributes<Upload>> = {}) {
+  const [taken] = await Upload.update(
+    { status: 'processing', claimedBy: instanceName(), claimedAt: new Date(), ...also },
+    { where: { id: uploadId, ...where }, transaction },
+  );
+  return taken === 1;
+}
+
+/** The worker takes a queued upload for this instance; false when another took it first. */
+export function takeQueued(uploadId: number, transaction: Transaction): Promise<boolean> {
+  return claimWhere(uploadId, { status: 'queued' }, transaction);
+}
+
 /**
  * Takes the upload to process it: a queued one (as scripts and the demo seeder hand it over), or
  * one this instance's worker has claimed already. False when another instance holds it.
  */
-export async function startProcessing(uploadId: number, transaction: Transaction, startedAt: Date): Promise<boolean> {
-  const [taken] = await Upload.update(
-    { status: 'processing', claimedBy: instanceName(), claimedAt: new Date(), startedAt, error: null },
-    { where: { id: uploadId, [Op.or]: [{ status: 'queued' }, held(uploadId)] }, transaction },
-  );
-  return taken === 1;
+export function startProcessing(uploadId: number, transaction: Transaction, startedAt: Date): Promise<boolean> {
+  return claimWhere(uploadId, { [Op.or]: [{ status: 'queued' }, held(uploadId)] }, transaction, { startedAt, error: null });
 }
 
 /**

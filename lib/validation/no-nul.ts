@@ -1,3 +1,4 @@
+import { AppError } from '@/lib/http/errors';
 import type { FieldIssue } from '@/lib/http/zod-issues';
 
 const MESSAGE = 'Text may not contain the NUL character (\\u0000).';
@@ -17,4 +18,10 @@ export function nulIssues(value: unknown, path: string[] = []): FieldIssue[] {
     ]);
   }
   return [];
+}
+
+/** Refuses request data with a NUL character in it (422, each field named), before any schema reads it. */
+export function assertNoNul(value: unknown): void {
+  const issues = nulIssues(value);
+  if (issues.length) throw new AppError('invalid', 'Text may not contain the NUL character.', issues);
 }
